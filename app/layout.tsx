@@ -1,0 +1,27 @@
+import type { Metadata, Viewport } from "next";
+import type { ReactNode } from "react";
+import { inter } from "./fonts";
+import "./globals.css";
+
+export const metadata: Metadata = {
+  title: { default: "Benchwright", template: "%s · Benchwright" },
+  description: "Offline-first bench companion for small-engine and outdoor power equipment repair shops.",
+  applicationName: "Benchwright",
+};
+
+export const viewport: Viewport = {
+  width: "device-width",
+  initialScale: 1,
+  themeColor: [
+    { media: "(prefers-color-scheme: light)", color: "#f6f6f9" },
+    { media: "(prefers-color-scheme: dark)", color: "#0f0f15" },
+  ],
+};
+
+export default function RootLayout({ children }: { children: ReactNode }) {
+  return (
+    <html lang="en" className={inter.variable}>
+      <body className="min-h-dvh font-sans antialiased">{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,10 @@
+import type { ReactNode } from "react";
+import { getCurrentUser } from "@/lib/auth/guard";
+import { StaffShell } from "@/components/shell/staff-shell";
+
+/** The shell only; each page calls the access guard itself (layouts do not re-run on every navigation). */
+export default async function OwnerLayout({ children }: { children: ReactNode }) {
+  const user = await getCurrentUser();
+  if (!user || user.role !== "owner") return <>{children}</>;
+  return <StaffShell user={user}>{children}</StaffShell>;
+}
