@@ -1,0 +1,7 @@
+export * from "./result";
+export * from "./units";
+export * from "./premix";
+export * from "./tune";
+export * from "./readings";
+export * from "./tag-code";
+export * from "./cautions";
