@@ -7,9 +7,7 @@
  * "practice" (common practice, no single source). Every caution's text ends with the deferral line
  * `DEFER_TO_MANUAL`. Nothing here replaces the maker's manual, local codes or licensed practice.
  */
-import type { SourceMarker } from "./premix";
-
-export type { SourceMarker };
+import type { SourceMarker } from "./sources";
 
 export const SIGNAL_WORDS = ["DANGER", "WARNING", "CAUTION", "NOTICE"] as const;
 export type SignalWord = (typeof SIGNAL_WORDS)[number];

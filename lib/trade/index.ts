@@ -1,4 +1,5 @@
 export * from "./result";
+export * from "./sources";
 export * from "./units";
 export * from "./premix";
 export * from "./tune";

@@ -6,6 +6,7 @@
  * (2.56 fl oz → "2.6 fl oz", 31.25 mL → "31 mL").
  */
 import { err, ok, type Result } from "./result";
+import type { Cited } from "./sources";
 import { convertVolume, formatDecimal, UNIT_LABELS } from "./units";
 
 export const PREMIX_UNITS = ["gal", "fl-oz", "L", "mL"] as const;
@@ -70,14 +71,17 @@ export function formatRatio(ratio: number): string {
   return `${formatDecimal(ratio, 1)}:1`;
 }
 
+/** Exact oil amount: gasoline (in the oil's unit) ÷ R. */
+const oilValue = (gasoline: Volume, ratio: number, oilUnit: PremixUnit): number =>
+  convertVolume(gasoline.value, gasoline.unit, oilUnit) / ratio;
+
 /** Oil needed for `gasoline` at `ratio`:1, answered in `oilUnit` (units may be mixed freely). */
 export function oilForGasoline(gasoline: Volume, ratio: number, oilUnit: PremixUnit): Result<OilAmount> {
   const bad = checkVolume(gasoline, "gasoline");
   if (bad) return err(bad);
   if (!Number.isFinite(ratio) || ratio <= 0) return err("Enter the ratio as a number more than 0, e.g. 50 for 50:1.");
   if (!isUnit(oilUnit)) return err("Choose a unit for the oil (US gal, US fl oz, L or mL).");
-  const gasInOilUnit = convertVolume(gasoline.value, gasoline.unit, oilUnit);
-  const value = gasInOilUnit / ratio;
+  const value = oilValue(gasoline, ratio, oilUnit);
   return ok({
     oil: { value, unit: oilUnit },
     display: chartDisplay(value, oilUnit),
@@ -113,16 +117,13 @@ export function premixChart(
   return ratios.map((ratio) => ({
     ratio,
     cells: amounts.map(({ gasoline, oilUnit }) => {
-      const value = convertVolume(gasoline.value, gasoline.unit, oilUnit) / ratio;
+      const value = oilValue(gasoline, ratio, oilUnit);
       return { gasoline, oil: { value, unit: oilUnit }, display: chartDisplay(value, oilUnit) };
     }),
   }));
 }
 
 // ---- Oil classes and ethanol guidance ---------------------------------------------------------
-
-export type SourceMarker = "read" | "memory" | "practice";
-export type Cited = { text: string; source: string; marker: SourceMarker };
 
 /** Two-stroke oil classes for air-cooled engines, lowest to highest. */
 export const TWO_STROKE_OIL_CLASSES: readonly Cited[] = [

@@ -117,7 +117,7 @@ export function checkCompression(input: {
     checkAgainst(input.reading, bandInUnit, {
       what: "Compression",
       unitLabel: UNIT_LABELS[input.unit],
-      decimals: input.unit === "bar" ? 2 : input.unit === "kPa" ? 0 : 0,
+      decimals: input.unit === "bar" ? 2 : 0,
       basis,
     }),
   );
