@@ -1,0 +1,4 @@
+export * from "./rounding";
+export * from "./format";
+export * from "./labor";
+export * from "./invoice";
