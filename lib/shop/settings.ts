@@ -3,6 +3,7 @@ import { z } from "zod";
 import type { Db } from "../../db/client";
 import { shopSettings } from "../../db/schema";
 import { audit } from "../audit/log";
+import { formatCents, parseDollars, parsePercent } from "../money/format";
 
 export type ShopSettings = typeof shopSettings.$inferSelect;
 
@@ -16,28 +17,27 @@ export function getShopSettings(db: Db): ShopSettings {
   return db.select().from(shopSettings).where(eq(shopSettings.id, SETTINGS_ID)).get()!;
 }
 
-/** "12.50" or "$12.50" -> 1250 cents. */
+/** Dollars as typed -> integer cents (lib/money does the parsing). */
 const dollars = (label: string) =>
-  z
-    .string()
-    .trim()
-    .regex(/^\$?\d{1,6}(\.\d{1,2})?$/, `Enter ${label} in dollars, e.g. 95 or 95.50.`)
-    .transform((v) => {
-      const [whole, frac = ""] = v.replace("$", "").split(".");
-      return Number(whole) * 100 + Number(frac.padEnd(2, "0"));
-    });
+  z.string().transform((text, ctx) => {
+    const r = parseDollars(text);
+    if (!r.ok) ctx.addIssue({ code: "custom", message: `Enter ${label} in dollars, e.g. 95 or 95.50.` });
+    else if (r.value < 0) ctx.addIssue({ code: "custom", message: `${cap(label)} cannot be negative.` });
+    else return r.value;
+    return z.NEVER;
+  });
 
-/** "8.25" (percent) -> parts per million (82500), up to 4 decimals. */
+/** A percentage as typed -> parts per million (lib/money does the parsing). */
 const percent = (label: string, max: number) =>
-  z
-    .string()
-    .trim()
-    .regex(/^\d{1,3}(\.\d{1,4})?$/, `Enter ${label} as a percentage, e.g. 8.25.`)
-    .transform((v) => {
-      const [whole, frac = ""] = v.split(".");
-      return Number(whole) * 10_000 + Number(frac.padEnd(4, "0"));
-    })
-    .refine((ppm) => ppm <= max * 10_000, `${label[0]!.toUpperCase()}${label.slice(1)} must be at most ${max} %.`);
+  z.string().transform((text, ctx) => {
+    const r = parsePercent(text, 1_000_000);
+    if (!r.ok) ctx.addIssue({ code: "custom", message: `Enter ${label} as a percentage, e.g. 8.25.` });
+    else if (r.value > max * 10_000) ctx.addIssue({ code: "custom", message: `${cap(label)} must be at most ${max} %.` });
+    else return r.value;
+    return z.NEVER;
+  });
+
+const cap = (s: string) => s[0]!.toUpperCase() + s.slice(1);
 
 const intIn = (label: string, min: number, max: number) =>
   z
@@ -45,7 +45,7 @@ const intIn = (label: string, min: number, max: number) =>
     .trim()
     .regex(/^\d+$/, `Enter ${label} as a whole number.`)
     .transform(Number)
-    .refine((n) => n >= min && n <= max, `${label[0]!.toUpperCase()}${label.slice(1)} must be from ${min} to ${max}.`);
+    .refine((n) => n >= min && n <= max, `${cap(label)} must be from ${min} to ${max}.`);
 
 export const settingsFormSchema = z.object({
   name: z.string().trim().min(1, "Enter the shop's name.").max(100),
@@ -75,7 +75,7 @@ function isTimeZone(tz: string): boolean {
 export type SettingsInput = z.output<typeof settingsFormSchema>;
 
 /** Saves settings already parsed by settingsFormSchema. */
-export function saveShopSettings(db: Db, v: SettingsInput, actorId: string): void {
+export function saveShopSettings(db: Db, v: SettingsInput, actorId: string | null): void {
   getShopSettings(db);
   db.transaction((tx) => {
     tx.update(shopSettings)
@@ -103,7 +103,7 @@ export function saveShopSettings(db: Db, v: SettingsInput, actorId: string): voi
 
 /** Settings as the form's text fields. */
 export function settingsToForm(s: ShopSettings): Record<string, string> {
-  const money = (c: number) => (c / 100).toFixed(2);
+  const money = (c: number) => formatCents(c).replace("$", "").replace(/,/g, "");
   const pct = (ppm: number) => String(ppm / 10_000);
   return {
     name: s.name,
