@@ -26,7 +26,7 @@ export default async function PeoplePage() {
                 {!p.active ? <p className="rounded-lg bg-bad-soft px-2 font-bold text-bad">Switched off</p> : null}
                 {p.id === me.id ? <p className="text-sm text-muted">(you)</p> : null}
               </div>
-              <PersonControls id={p.id} name={p.name} role={p.role} active={p.active} />
+              <PersonControls id={p.id} name={p.name} role={p.role} active={p.active} isSelf={p.id === me.id} />
             </li>
           ))}
         </ul>

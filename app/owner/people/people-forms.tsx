@@ -52,7 +52,7 @@ export function AddPersonForm() {
   );
 }
 
-export function PersonControls({ id, name, role, active }: { id: string; name: string; role: Role; active: boolean }) {
+export function PersonControls({ id, name, role, active, isSelf }: { id: string; name: string; role: Role; active: boolean; isSelf: boolean }) {
   const [roleState, roleAction] = useActionState<FormState, FormData>(changeRoleAction, {});
   const [activeState, activeAction] = useActionState<FormState, FormData>(setActiveAction, {});
   const [pwState, pwAction] = useActionState<FormState, FormData>(resetPasswordAction, {});
@@ -71,13 +71,15 @@ export function PersonControls({ id, name, role, active }: { id: string; name: s
           </label>
           <Button type="submit" variant="secondary">Change</Button>
         </form>
-        <form action={activeAction}>
-          <input type="hidden" name="id" value={id} />
-          <input type="hidden" name="active" value={active ? "no" : "yes"} />
-          <Button type="submit" variant={active ? "danger" : "secondary"}>
-            {active ? `Switch off ${name.split(" ")[0]}` : `Switch on ${name.split(" ")[0]}`}
-          </Button>
-        </form>
+        {isSelf ? null : (
+          <form action={activeAction}>
+            <input type="hidden" name="id" value={id} />
+            <input type="hidden" name="active" value={active ? "no" : "yes"} />
+            <Button type="submit" variant="secondary" className={active ? "text-bad" : ""}>
+              {active ? `Switch off ${name.split(" ")[0]}` : `Switch on ${name.split(" ")[0]}`}
+            </Button>
+          </form>
+        )}
         <form action={pwAction} className="flex items-end gap-2">
           <input type="hidden" name="id" value={id} />
           <label className="flex flex-col gap-1 text-sm font-semibold">
