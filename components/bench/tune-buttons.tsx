@@ -13,6 +13,8 @@ import {
   type TuneState,
 } from "@/lib/trade/tune";
 
+const capitalize = (t: string) => t.charAt(0).toUpperCase() + t.slice(1);
+
 const STEPS = [
   { eighths: 1, label: "⅛" },
   { eighths: 2, label: "¼" },
@@ -63,7 +65,7 @@ export function TuneButtons({
             <header className="flex flex-wrap items-baseline justify-between gap-2">
               <h3 className="text-xl font-bold">
                 <span className="mr-2 rounded-lg bg-ink px-2 py-0.5 text-bg">{SCREW_SHORT[screw]}</span>
-                <span className="first-letter:uppercase">{SCREW_LABELS[screw]}</span>
+                {capitalize(SCREW_LABELS[screw])}
               </h3>
               <p className="text-lg font-bold tabular-nums" data-testid={`net-${screw}`}>
                 {describePosition(s)}

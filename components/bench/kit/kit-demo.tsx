@@ -67,7 +67,10 @@ export function KitDemo() {
         ) : null}
 
         {spark.kind === "choice" && visible.includes(spark.id) ? (
-          <ChoiceChips label={spark.title} hint={spark.help} mode={spark.mode} options={spark.options} value={selected(spark.id)} onChange={setChoice(spark.id)} />
+          <div className="flex flex-col gap-4">
+            {spark.hazards ? <HazardNote kinds={spark.hazards} compact /> : null}
+            <ChoiceChips label={spark.title} hint={spark.help} mode={spark.mode} options={spark.options} value={selected(spark.id)} onChange={setChoice(spark.id)} />
+          </div>
         ) : null}
 
         {suggestions.length ? (

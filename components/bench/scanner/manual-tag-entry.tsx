@@ -1,7 +1,11 @@
 "use client";
 
 import { useState, type Ref } from "react";
-import { checkTagCode } from "@/lib/trade/tag-code";
+import { checkTagCode, formatTagCode, isValidTagCode } from "@/lib/trade/tag-code";
+
+/** An example that itself checks out (ISO/IEC 7064 MOD 37-2). */
+const EXAMPLE = formatTagCode("HAWBR7H");
+if (process.env.NODE_ENV !== "production" && !isValidTagCode(EXAMPLE)) throw new Error("the example tag code must be valid");
 
 /**
  * Typing the tag code when the camera cannot read it. Same check as the scanner (lib/trade/tag-code): a wrong
@@ -30,7 +34,8 @@ export function ManualTagEntry({ onCode, inputRef }: { onCode: (code: string) =>
         Or type the tag code
       </label>
       <p id="manual-tag-code-hint" className="-mt-1 text-base text-ink-2">
-        7 characters under the barcode, e.g. K7M-4QX9. Dashes and spaces do not matter.
+        The 7 characters printed on the tag, e.g. <span className="whitespace-nowrap font-mono">{EXAMPLE}</span>. Dashes
+        and spaces do not matter.
       </p>
       <div className="flex gap-3">
         <input
