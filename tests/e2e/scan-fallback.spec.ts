@@ -16,6 +16,7 @@ test("camera permission denied: says how to allow it and offers typing the code"
   await expect(alert).toContainText("The camera is blocked for Benchwright");
   await expect(alert).toContainText("set Camera to Allow");
   await expect(alert.getByRole("button", { name: "Try again" })).toBeVisible();
+  if (process.env.SCREENSHOTS) await page.screenshot({ path: "tests/.tmp/screens/scan-denied.png" });
   await alert.getByRole("button", { name: "Type the code" }).click();
   await expect(scan.manualField()).toBeFocused();
   await scan.typeCode("");

@@ -10,6 +10,7 @@ import { DEMO, signInAs } from "./pages/sign-in";
 import { RECORD_CAMERA_AND_VIBRATION, ScanPage } from "./pages/scan";
 import { formatTagCode, generateTagCode, isValidTagCode, TAG_ALPHABET } from "../../lib/trade/tag-code";
 
+const SHOTS = process.env.SCREENSHOTS ? "tests/.tmp/screens" : null;
 const BASE_URL = `http://localhost:${E2E_PORT}`;
 const CHROMIUM = process.env.CHROMIUM_PATH || "/usr/bin/chromium";
 
@@ -108,6 +109,7 @@ test("a tag whose check character is wrong is refused, the camera keeps looking,
     expect((await cameraTracks(page)).tracks[0]).toMatchObject({ width: 640, height: 480, state: "live" });
     await expect(scan.tagCode()).toHaveCount(0);
     expect(await page.evaluate(() => (window as unknown as { __vibrations: unknown[] }).__vibrations)).toEqual([]);
+    if (SHOTS) await page.screenshot({ path: `${SHOTS}/scan-misread.png`, fullPage: true });
 
     // Manual entry: the same check, a clear error, and the typed text kept.
     await scan.typeCode(formatTagCode(misread).toLowerCase());
@@ -118,6 +120,7 @@ test("a tag whose check character is wrong is refused, the camera keeps looking,
     await scan.typeCode(`${good.slice(0, 3)} ${good.slice(3).toLowerCase()}`);
     await expect(scan.tagCode()).toHaveText(formatTagCode(good));
     await expect(scan.lookup()).toBeVisible();
+    if (SHOTS) await page.screenshot({ path: `${SHOTS}/scan-found.png` });
     expect((await cameraTracks(page)).tracks[0]?.state).toBe("ended"); // the camera is released
   } finally {
     await browser.close();
