@@ -1,0 +1,195 @@
+/**
+ * Two-stroke handheld: string trimmer, blower, hedge trimmer. Shared engine checks, then a step for each machine's
+ * own working parts (`onlyFor`). Our own words from general trade knowledge (common practice, no single source).
+ */
+import type { Procedure } from "../model";
+import {
+  airFilter,
+  carbClean,
+  coilAirGap,
+  compressionGauge,
+  diaphragmCarb,
+  finalAccel,
+  finalNote,
+  finalPhoto,
+  finalStarts,
+  fuelCondition,
+  fuelFilter,
+  fuelLevel,
+  fuelLine,
+  intakeDamage,
+  intakePhoto,
+  leakWhere,
+  PART,
+  partsUsed,
+  pistonLook,
+  plugCondition,
+  plugGapTwoStroke,
+  primedStart,
+  primerBulb,
+  pullOverFeel,
+  sparkArrestor,
+  sparkTest,
+  stopSwitch,
+  tuneLog,
+} from "./common";
+
+export const HANDHELD: Procedure = {
+  id: "handheld-2t",
+  version: 1,
+  title: "Two-stroke handheld",
+  summary: "Bench sheet for two-stroke string trimmers, blowers and hedge trimmers.",
+  machineKinds: ["string_trimmer", "blower", "hedge_trimmer"],
+  engineTypes: ["two_stroke"],
+  sections: [
+    {
+      id: "intake",
+      title: "Condition at intake",
+      steps: [intakeDamage(), intakePhoto],
+    },
+    {
+      id: "fuel",
+      title: "Tank and fuel",
+      steps: [fuelLevel, fuelFilter, fuelLine, primerBulb, fuelCondition(true)],
+    },
+    {
+      id: "compression",
+      title: "Compression",
+      steps: [pullOverFeel, compressionGauge, pistonLook],
+    },
+    {
+      id: "starting",
+      title: "Starting and spark",
+      steps: [primedStart, sparkTest, plugCondition, plugGapTwoStroke, stopSwitch, coilAirGap],
+    },
+    {
+      id: "leaks",
+      title: "Fuel leaks",
+      steps: [leakWhere],
+    },
+    {
+      id: "air-exhaust",
+      title: "Air and exhaust",
+      steps: [airFilter, sparkArrestor],
+    },
+    {
+      id: "carburetor",
+      title: "Carburetor",
+      steps: [carbClean, ...diaphragmCarb],
+    },
+    {
+      id: "working-parts",
+      title: "Working parts",
+      steps: [
+        {
+          id: "trimmer-head",
+          kind: "choice",
+          mode: "multi",
+          title: "Trimmer head and line",
+          help: "Engine off and plug lead pulled before turning the head by hand.",
+          onlyFor: ["string_trimmer"],
+          options: [
+            { id: "good", label: "Good", exclusive: true },
+            { id: "eyelets-worn", label: "Eyelets worn" },
+            { id: "line-fused", label: "Line fused on the spool" },
+            { id: "shaft-slips", label: "Drive shaft slips" },
+            { id: "gearbox-dry", label: "Gearhead dry or rough" },
+          ],
+        },
+        {
+          id: "blower-fan",
+          kind: "choice",
+          mode: "multi",
+          title: "Fan and tubes",
+          help: "Engine off and plug lead pulled before reaching toward the fan.",
+          onlyFor: ["blower"],
+          options: [
+            { id: "good", label: "Good", exclusive: true },
+            { id: "fan-damaged", label: "Fan blades chipped" },
+            { id: "debris", label: "Debris in the housing" },
+            { id: "tube-cracked", label: "Tube cracked or loose" },
+          ],
+        },
+        {
+          id: "hedge-blades",
+          kind: "choice",
+          mode: "multi",
+          title: "Blades and gearbox",
+          help: "Engine off, plug lead pulled and gloves on: the blades are sharp.",
+          onlyFor: ["hedge_trimmer"],
+          options: [
+            { id: "good", label: "Good", exclusive: true },
+            { id: "dull", label: "Dull or nicked" },
+            { id: "bent", label: "Bent" },
+            { id: "gearbox-dry", label: "Gearbox dry" },
+            { id: "clutch-slips", label: "Blades stop under load" },
+          ],
+        },
+      ],
+    },
+    {
+      id: "parts",
+      title: "Parts",
+      steps: [
+        partsUsed([
+          PART.fuelLine,
+          PART.fuelFilter,
+          PART.primerBulb,
+          PART.meteringDiaphragm,
+          PART.pumpDiaphragm,
+          PART.carbGaskets,
+          PART.carburetor,
+          PART.sparkPlug,
+          PART.airFilter,
+          PART.starterRope,
+          { id: "trimmer-head", label: "Trimmer head" },
+        ]),
+      ],
+    },
+    {
+      id: "tune",
+      title: "Tune log",
+      steps: [
+        tuneLog(
+          ["low", "high", "idle"],
+          "Record where each screw started (seated then out, or as found) before turning it. Adjust with the engine warm and running.",
+        ),
+      ],
+    },
+    {
+      id: "final",
+      title: "Final run",
+      steps: [
+        finalStarts,
+        {
+          id: "final-idle",
+          kind: "choice",
+          mode: "single",
+          title: "Idle",
+          hazards: ["test-run"],
+          options: [
+            { id: "steady", label: "Idles steadily, head or blades still" },
+            { id: "moves-at-idle", label: "Head or blades move at idle" },
+            { id: "dies-at-idle", label: "Dies at idle" },
+            { id: "hunts", label: "Idle rises and falls" },
+          ],
+        },
+        finalAccel,
+        {
+          id: "final-cut",
+          kind: "choice",
+          mode: "single",
+          title: "Under load: trimming, blowing or cutting",
+          hazards: ["test-run"],
+          options: [
+            { id: "clean", label: "Holds full speed" },
+            { id: "bogs", label: "Bogs under load" },
+            { id: "weak", label: "Low power" },
+          ],
+        },
+        finalNote,
+        finalPhoto,
+      ],
+    },
+  ],
+};
