@@ -1,7 +1,7 @@
 /**
  * Repair tag codes and product barcode check digits.
  *
- * Tag code: 6 data characters + 1 check character, printed as "K7M-4QX9"-style groups of 3 and 4.
+ * Tag code: 6 data characters + 1 check character, printed as "HAW-BR7H"-style groups of 3 and 4.
  *
  * - Check character: ISO/IEC 7064 MOD 37-2 (pure system, modulus 37, radix 2) over the standard's
  *   character values 0–9 = 0–9, A–Z = 10–35, '*' = 36. Because 37 is prime and every weight 2^i mod 37
@@ -59,12 +59,12 @@ export function mod37_2IsValid(full: string): boolean {
   return p === 1;
 }
 
-/** Upper-case and drop spaces and dashes: " k7m-4qx9 " → "K7M4QX9". */
+/** Upper-case and drop spaces and dashes: " haw-br7h " → "HAWBR7H". */
 export function normalizeTagCode(input: string): string {
   return input.toUpperCase().replace(/[\s\-‐‑‒–—]/g, "");
 }
 
-/** "K7M4QX9" → "K7M-4QX9" (input is normalized first). */
+/** "HAWBR7H" → "HAW-BR7H" (input is normalized first). */
 export function formatTagCode(code: string): string {
   const c = normalizeTagCode(code);
   return c.length === TAG_CODE_LENGTH ? `${c.slice(0, 3)}-${c.slice(3)}` : c;
@@ -73,7 +73,7 @@ export function formatTagCode(code: string): string {
 /** Check a typed or scanned tag code; on success returns the normalized code. */
 export function checkTagCode(input: string): Result<string> {
   const c = normalizeTagCode(input);
-  if (c.length === 0) return err("Enter the tag code (7 characters, e.g. K7M-4QX9).");
+  if (c.length === 0) return err("Enter the tag code (7 characters, e.g. HAW-BR7H).");
   for (const [i, ch] of [...c].entries()) {
     if (!TAG_ALPHABET.includes(ch)) {
       const why = TAG_EXCLUDED.includes(ch)
