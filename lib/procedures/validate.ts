@@ -30,6 +30,8 @@ export const HAZARD_CUES: Record<HazardousStepKind, RegExp> = {
   "chain-work": /\b(chain|sprocket|clutch|guide bar|bar nose|bar rails?)\b/i,
   "compressed-air": /\bcompressed air\b|\bair gun\b|\bblow(n|ing)? (out|off|through|clean)\b/i,
   "hot-muffler": /\b(muffler|exhaust port)\b|\bspark arrest\w*/i,
+  "blade-work": /\b(blade|blades|blade bolt)\b/i,
+  "electrical-output": /\b(outlet|outlets|volts|GFCI|receptacle)\b/i,
 };
 
 /** The hazard kinds a step's words name. */

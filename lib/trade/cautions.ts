@@ -31,6 +31,8 @@ export const HAZARDOUS_STEP_KINDS = [
   "chain-work",
   "compressed-air",
   "hot-muffler",
+  "blade-work",
+  "electrical-output",
 ] as const;
 export type HazardousStepKind = (typeof HAZARDOUS_STEP_KINDS)[number];
 
@@ -43,6 +45,8 @@ export const HAZARDOUS_STEP_LABELS: Record<HazardousStepKind, string> = {
   "chain-work": "Chain and bar work",
   "compressed-air": "Compressed-air cleaning",
   "hot-muffler": "Hot muffler and cylinder",
+  "blade-work": "Blade work",
+  "electrical-output": "Live electrical output",
 };
 
 export function isHazardousStepKind(kind: string): kind is HazardousStepKind {
@@ -67,6 +71,44 @@ type Draft = Omit<Caution, "text"> & { body: string };
 const define = ({ body, ...rest }: Draft): Caution => ({ ...rest, text: `${body.trim()} ${DEFER_TO_MANUAL}` });
 
 export const CAUTIONS: readonly Caution[] = [
+  // ---- Blades and live output ---------------------------------------------------------------------
+  define({
+    id: "blade-plug-lead-off",
+    signalWord: "WARNING",
+    title: "Plug lead off before touching a blade",
+    body: "Pull the spark plug lead and keep it away from the plug (on electric machines, take out the battery or key) so the engine cannot fire when the blade is turned by hand. Wear cut-resistant gloves and block the blade before loosening its bolt.",
+    source: "Common practice, no single source (walk-behind mower safety is covered by ANSI/OPEI B71.1 and 16 CFR 1205)",
+    marker: "practice",
+    markerNote: "The standard numbers are from memory.",
+    appliesTo: ["blade-work"],
+  }),
+  define({
+    id: "blade-tip-carburetor-up",
+    signalWord: "CAUTION",
+    title: "Tip the mower carburetor side up",
+    body: "Tip a mower with the air filter and carburetor facing up, on a drained or nearly empty tank, so fuel and oil do not run into the air filter or onto the floor.",
+    source: "Common practice, no single source",
+    marker: "practice",
+    appliesTo: ["blade-work"],
+  }),
+  define({
+    id: "output-live-outlets",
+    signalWord: "WARNING",
+    title: "Live outlets while the generator runs",
+    body: "Outlets and terminals are live whenever the engine runs. Keep hands, floor and meter dry; hold meter probes by their insulation; use a meter and leads rated for the voltage; plug loads in and out with the switch off.",
+    source: "Common practice, no single source",
+    marker: "practice",
+    appliesTo: ["electrical-output"],
+  }),
+  define({
+    id: "output-no-backfeed",
+    signalWord: "DANGER",
+    title: "Never backfeed a building's wiring",
+    body: "Never connect a generator to a building's wiring except through a transfer switch installed to the electrical code: backfed power can kill line workers and neighbours.",
+    source: "NFPA 70 (National Electrical Code), Article 702 optional standby systems",
+    marker: "memory",
+    appliesTo: ["electrical-output"],
+  }),
   // ---- Fuel -------------------------------------------------------------------------------------
   define({
     id: "fuel-away-from-ignition",

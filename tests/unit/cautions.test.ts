@@ -133,3 +133,18 @@ describe("content against the sources", () => {
     expect(byId("kickback-devices").text).toMatch(/9 February 1995/);
   });
 });
+
+describe("blades and live output", () => {
+  it("blade work starts with the plug lead off [common practice, no single source]", () => {
+    const ids = cautionsFor("blade-work").map((c) => c.id);
+    expect(ids).toContain("blade-plug-lead-off");
+    expect(byId("blade-plug-lead-off").marker).toBe("practice");
+  });
+
+  it("generator output work warns of live outlets and forbids backfeeding [NFPA 70 Art. 702, from memory]", () => {
+    const cautions = cautionsFor("electrical-output");
+    expect(cautions[0]).toMatchObject({ id: "output-no-backfeed", signalWord: "DANGER", marker: "memory" });
+    expect(cautions.map((c) => c.id)).toContain("output-live-outlets");
+    for (const c of cautions) expect(c.text.endsWith(DEFER_TO_MANUAL)).toBe(true);
+  });
+});

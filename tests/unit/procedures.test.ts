@@ -69,9 +69,9 @@ describe("built-in procedures", () => {
     expect(hazardous).toBeGreaterThan(40);
   });
 
-  it("hazard kinds are exactly the registry's eight names", () => {
+  it("hazard kinds are exactly the registry's ten names", () => {
     expect([...HAZARDOUS_STEP_KINDS].sort()).toEqual(
-      ["chain-work", "compressed-air", "fueling", "hot-muffler", "prime-start", "solvent-cleaning", "spark-test", "test-run"],
+      ["blade-work", "chain-work", "compressed-air", "electrical-output", "fueling", "hot-muffler", "prime-start", "solvent-cleaning", "spark-test", "test-run"],
     );
   });
 
@@ -82,6 +82,8 @@ describe("built-in procedures", () => {
       expectHazard(p, "primed-start", "prime-start");
       expectHazard(p, "primed-start", "fueling");
       expectHazard(p, "spark-test", "spark-test");
+      if (p === MOWER) expectHazard(p, "blade", "blade-work");
+      if (p === GENERATOR) expectHazard(p, "load-volts", "electrical-output");
       expectHazard(p, "carb-clean", "solvent-cleaning");
       expectHazard(p, "carb-clean", "compressed-air");
       expectHazard(p, "final-starts", "test-run");
@@ -271,7 +273,8 @@ describe("hazard cues in a step's words", () => {
     expect(cues("Carburetor cleaning", "Parts cleaner spray, outdoors")).toEqual(["solvent-cleaning"]);
     expect(cues("Chain brake engages and releases")).toEqual(["chain-work"]);
     expect(cues("Blow out the fins", "Use compressed air")).toEqual(["compressed-air"]);
-    expect(cues("Volts under load")).toEqual(["test-run"]);
+    expect(cues("Volts under load")).toEqual(["test-run", "electrical-output"]);
+    expect(cues("Blade", "Plug lead off")).toEqual(["blade-work"]);
     expect(cues("Fuel line")).toEqual(["fueling"]);
     expect(cues("Piston through the exhaust port")).toEqual(["hot-muffler"]);
   });

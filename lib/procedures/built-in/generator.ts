@@ -77,7 +77,7 @@ export const GENERATOR: Procedure = {
           kind: "reading",
           title: "Volts with no load",
           help: `Engine warm and running, nothing plugged in. ${PROBES}`,
-          hazards: ["test-run"],
+          hazards: ["test-run", "electrical-output"],
           reading: { quantity: "volts", units: ["V"], nominal: 120 },
         },
         {
@@ -85,7 +85,7 @@ export const GENERATOR: Procedure = {
           kind: "reading",
           title: "Frequency with no load",
           help: "Same outlet, meter on Hz.",
-          hazards: ["test-run"],
+          hazards: ["test-run", "electrical-output"],
           reading: { quantity: "hertz", units: ["Hz"], nominal: 60 },
         },
         {
@@ -93,7 +93,7 @@ export const GENERATOR: Procedure = {
           kind: "reading",
           title: "Volts under load",
           help: `A known load of about half the rating plugged in (a heater or lamp bank). ${PROBES}`,
-          hazards: ["test-run"],
+          hazards: ["test-run", "electrical-output"],
           reading: { quantity: "volts", units: ["V"], nominal: 120 },
         },
         {
@@ -101,7 +101,7 @@ export const GENERATOR: Procedure = {
           kind: "reading",
           title: "Frequency under load",
           help: "Same load, meter on Hz.",
-          hazards: ["test-run"],
+          hazards: ["test-run", "electrical-output"],
           reading: { quantity: "hertz", units: ["Hz"], nominal: 60 },
         },
         {
@@ -109,7 +109,7 @@ export const GENERATOR: Procedure = {
           kind: "pass-fail",
           title: "Outlets and breakers; GFCI trips and resets",
           help: "Engine running: press the GFCI test button (power cuts off) and reset it; each outlet powers a test lamp.",
-          hazards: ["test-run"],
+          hazards: ["test-run", "electrical-output"],
           passLabel: "All work",
           failLabel: "Fault",
         },

@@ -116,6 +116,7 @@ export const HANDHELD: Procedure = {
           mode: "multi",
           title: "Blades and gearbox",
           help: "Engine off, plug lead pulled and gloves on: the blades are sharp.",
+          hazards: ["blade-work"],
           onlyFor: ["hedge_trimmer"],
           options: [
             { id: "good", label: "Good", exclusive: true },

@@ -66,7 +66,7 @@ export const WALK_MOWER: Procedure = {
           mode: "multi",
           title: "Blade",
           help: "Plug lead off and tucked away, gloves on. Tip the mower with the air filter and carburetor up so fuel and oil stay put.",
-          hazards: ["fueling"],
+          hazards: ["fueling", "blade-work"],
           options: [
             { id: "sharp", label: "Sharp and balanced", exclusive: true },
             { id: "dull", label: "Dull" },
@@ -110,7 +110,7 @@ export const WALK_MOWER: Procedure = {
           title: "Blade stops within 3 seconds of letting go of the control",
           help:
             "Engine running on a hard, clear surface: let go of the control bar and time how long the engine or blade takes to stop. Never reach under the deck. (US mower standard 16 CFR 1205, from memory.)",
-          hazards: ["test-run"],
+          hazards: ["test-run", "blade-work"],
           passLabel: "Stops in time",
           failLabel: "Too slow",
         },
