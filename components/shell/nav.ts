@@ -12,6 +12,7 @@ export interface NavItem {
 export const NAV_ITEMS: readonly NavItem[] = [
   { href: "/counter", label: "Queue", icon: "queue", roles: ["counter", "owner"], section: "shop" },
   { href: "/bench", label: "Bench", icon: "bench", roles: ["tech", "counter", "owner"], section: "shop" },
+  { href: "/tools", label: "Shop tools", icon: "tools", roles: ["tech", "counter", "owner"], section: "shop" },
   { href: "/owner/people", label: "People", icon: "people", roles: ["owner"], section: "owner" },
   { href: "/owner/settings", label: "Shop settings", icon: "settings", roles: ["owner"], section: "owner" },
 ];
