@@ -1,5 +1,5 @@
 import "server-only";
-import { aliasedTable, and, asc, count, desc, eq, inArray, isNotNull, isNull, lt, or, sql, type SQL } from "drizzle-orm";
+import { aliasedTable, and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lt, or, sql, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import type { Db } from "@/db/client";
 import { customers, machines, tickets, users } from "@/db/schema";
@@ -10,7 +10,7 @@ import { complaintSummary } from "@/lib/tickets/intake";
 import { unsyncedBenchWork, type UnsyncedWork } from "@/lib/tickets/unsynced";
 import { normalizeTagCode } from "@/lib/trade/tag-code";
 import { phoneDigits } from "./contact";
-import { dateIn, daysBetween } from "./dates";
+import { dateIn, daysBetween, zonedTimeToInstant } from "./dates";
 import { listTechs } from "./people";
 import { likeContains } from "./search";
 
@@ -206,4 +206,17 @@ export function queuePage(db: Db, query: QueueQuery, now: number = Date.now()): 
     today,
     techs: listTechs(db),
   };
+}
+
+/** Open tickets taken in since midnight in the shop's zone, oldest first (to print their tags on one sheet). */
+export function openTicketsTakenInToday(db: Db, now: number = Date.now()): Array<{ id: string; number: number }> {
+  const tz = getShopSettings(db).timezone;
+  const midnight = zonedTimeToInstant(dateIn(tz, now), "00:00", tz);
+  const from = midnight.ok ? midnight.value : now - 86_400_000;
+  return db
+    .select({ id: tickets.id, number: tickets.number })
+    .from(tickets)
+    .where(and(gte(tickets.createdAt, new Date(from)), inArray(tickets.status, [...OPEN_STATUSES])))
+    .orderBy(asc(tickets.number))
+    .all();
 }

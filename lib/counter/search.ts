@@ -58,6 +58,23 @@ export function searchCustomers(db: Pick<Db, "select">, q: string, limit = 8): C
     .all();
 }
 
+/** One customer's contact details, as intake shows them. */
+export function getCustomer(db: Pick<Db, "select">, id: string): CustomerHit | undefined {
+  return db
+    .select({
+      id: customers.id,
+      firstName: customers.firstName,
+      lastName: customers.lastName,
+      phone: customers.phone,
+      email: customers.email,
+      contactPreference: customers.contactPreference,
+      emailConsent: customers.emailConsent,
+    })
+    .from(customers)
+    .where(eq(customers.id, id))
+    .get();
+}
+
 export interface MachineHit {
   id: string;
   kind: MachineKind;
@@ -137,6 +154,11 @@ export function searchMachines(db: Pick<Db, "select">, q: string, limit = 8): Ma
   const key = normalizeSerial(text);
   if (!key) return [];
   return machineHits(db, and(sql`${serialKey} like ${contains(key)} escape ${ESC}`), limit);
+}
+
+/** One machine with its owner's name and open tickets. */
+export function getMachine(db: Pick<Db, "select">, id: string): MachineHit | undefined {
+  return machineHits(db, and(eq(machines.id, id)), 1)[0];
 }
 
 /** A customer's machines (for intake: pick one of theirs). */
