@@ -78,7 +78,7 @@ export function customerHistory(db: Db, customerId: string) {
   return { customer, machines: list };
 }
 
-/** History search: machines by serial or any tag/sticker code, customers by name, phone or e-mail. */
+/** History search: machines by serial, make and model or any tag/sticker code; customers by name, phone or e-mail. */
 export function historySearch(db: Db, q: string): { machines: MachineHit[]; customers: CustomerHit[] } {
-  return { machines: searchMachines(db, q, 20), customers: searchCustomers(db, q, 20) };
+  return { machines: searchMachines(db, q, 20, { byName: true }), customers: searchCustomers(db, q, 20) };
 }

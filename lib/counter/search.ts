@@ -142,8 +142,8 @@ export function machineIdForCode(db: Pick<Db, "select">, code: string): string |
 /** SQL for a machine's serial compared the way normalizeSerial does it. */
 export const serialKey = sql`upper(replace(replace(replace(replace(${machines.serial}, ' ', ''), '-', ''), '.', ''), '/', ''))`;
 
-/** Machines by tag or sticker code (exact), or by serial (any part of it). */
-export function searchMachines(db: Pick<Db, "select">, q: string, limit = 8): MachineHit[] {
+/** Machines by tag or sticker code (exact), or by serial (any part of it); with `byName`, also by make and model. */
+export function searchMachines(db: Pick<Db, "select">, q: string, limit = 8, opts: { byName?: boolean } = {}): MachineHit[] {
   const text = q.trim();
   if (text.length < 2) return [];
   const code = checkTagCode(text);
@@ -153,7 +153,10 @@ export function searchMachines(db: Pick<Db, "select">, q: string, limit = 8): Ma
   }
   const key = normalizeSerial(text);
   if (!key) return [];
-  return machineHits(db, and(sql`${serialKey} like ${contains(key)} escape ${ESC}`), limit);
+  const bySerial = sql`${serialKey} like ${contains(key)} escape ${ESC}`;
+  if (!opts.byName) return machineHits(db, and(bySerial), limit);
+  const byName = sql`(${machines.make} || ' ' || ${machines.model}) like ${contains(text)} escape ${ESC}`;
+  return machineHits(db, and(or(bySerial, byName)), limit);
 }
 
 /** One machine with its owner's name and open tickets. */

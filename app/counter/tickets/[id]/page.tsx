@@ -40,7 +40,7 @@ function Facts({ items }: { items: Array<[string, ReactNode]> }) {
       {items.map(([k, v]) => (
         <div key={k} className="contents">
           <dt className="text-muted">{k}</dt>
-          <dd className="font-medium">{v}</dd>
+          <dd className="min-w-0 font-medium break-words">{v}</dd>
         </div>
       ))}
     </dl>
@@ -187,10 +187,16 @@ export default async function TicketPage({
 
           {open ? (
             <Card id="sec-handback" title="Hand-back">
-              <HandBackForm
-                ticketId={t.id}
-                defaults={{ collectedBy: `${c.firstName} ${c.lastName}`.trim(), date: today, time: timeIn(tz, Date.now()), ready: t.status === "ready" }}
-              />
+              {t.status === "ready" ? (
+                <HandBackForm ticketId={t.id} defaults={{ collectedBy: `${c.firstName} ${c.lastName}`.trim(), date: today, time: timeIn(tz, Date.now()), ready: true }} />
+              ) : (
+                <details className="rounded-xl border border-line px-4 py-2">
+                  <summary className="tap flex cursor-pointer items-center font-semibold">Hand it back before it is marked ready</summary>
+                  <div className="py-3">
+                    <HandBackForm ticketId={t.id} defaults={{ collectedBy: `${c.firstName} ${c.lastName}`.trim(), date: today, time: timeIn(tz, Date.now()), ready: false }} />
+                  </div>
+                </details>
+              )}
             </Card>
           ) : d.handBack ? (
             <Card id="sec-handback" title="Hand-back">
@@ -210,7 +216,7 @@ export default async function TicketPage({
               items={[
                 ["Name", `${c.firstName} ${c.lastName}`.trim()],
                 ["Phone", c.phone || "—"],
-                ["E-mail", c.email || "—"],
+                ["E-mail", c.email ? <span className="break-all">{c.email}</span> : "—"],
                 ["Reach by", CONTACT_LABELS[c.contactPreference]],
                 ["E-mail consent", c.emailConsent ? "Yes" : "No"],
               ]}
