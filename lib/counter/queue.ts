@@ -131,14 +131,12 @@ export function queuePage(db: Db, query: QueueQuery, now: number = Date.now()): 
   if (query.q) filters.push(searchCondition(query.q));
   const where = and(...filters);
 
-  const countRows = db
-    .select({ status: tickets.status, n: count() })
-    .from(tickets)
-    .innerJoin(customers, eq(customers.id, tickets.customerId))
-    .innerJoin(machines, eq(machines.id, tickets.machineId))
-    .where(where)
-    .groupBy(tickets.status)
-    .all();
+  // Counting needs the customer and machine rows only when the search box looks into them.
+  let counting = db.select({ status: tickets.status, n: count() }).from(tickets).$dynamic();
+  if (query.q) {
+    counting = counting.innerJoin(customers, eq(customers.id, tickets.customerId)).innerJoin(machines, eq(machines.id, tickets.machineId));
+  }
+  const countRows = counting.where(where).groupBy(tickets.status).all();
   const counts = Object.fromEntries(TICKET_STATUSES.map((s) => [s, 0])) as Record<TicketStatus, number>;
   for (const r of countRows) counts[r.status] = r.n;
   const total = query.status ? counts[query.status] : countRows.reduce((a, r) => a + r.n, 0);

@@ -8,13 +8,12 @@ vi.mock("@/lib/auth/auth", () => ({ auth: vi.fn(async () => session.current) }))
 
 import { closeDb, type Db } from "@/db/client";
 import * as schema from "@/db/schema";
-import { customers, machines, tickets } from "@/db/schema";
 import { queuePage, queueQuerySchema, type QueueQuery } from "@/lib/counter/queue";
-import { dateIn, addDays, DAY_MS } from "@/lib/counter/dates";
+import { dateIn, DAY_MS } from "@/lib/counter/dates";
 import { GET as queueRoute } from "@/app/api/counter/queue/route";
-import { MACHINE_KINDS } from "@/lib/tickets/machine";
-import { OPEN_STATUSES, TICKET_STATUSES, type TicketStatus } from "@/lib/tickets/status";
-import { formatTagCode, generateTagCode } from "@/lib/trade/tag-code";
+import { OPEN_STATUSES, TICKET_STATUSES } from "@/lib/tickets/status";
+import { formatTagCode } from "@/lib/trade/tag-code";
+import { seedQueue, type MadeTicket } from "../fixtures/queue-data";
 import { tempDb } from "./helpers/db";
 import { makeShop, PEOPLE, sessionFor } from "./helpers/shop";
 
@@ -23,69 +22,17 @@ const NOW = Date.UTC(2026, 11, 1, 21, 0);
 const TODAY = dateIn("America/Chicago", NOW);
 const N = 5000;
 
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-interface Made {
-  id: string;
-  number: number;
-  tagCode: string;
-  status: TicketStatus;
-  techId: string | null;
-  promisedDate: string | null;
-  createdAt: number;
-  lastName: string;
-  serial: string;
-}
-
 let ctx: ReturnType<typeof tempDb>;
-let made: Made[] = [];
-const SYLLABLES = ["ash", "brem", "cor", "dal", "eth", "fen", "gor", "hal", "isk", "jor", "kel", "lun", "mar", "nor", "ost", "pell", "quin", "rav", "sel", "tor"];
-const TECHS = [PEOPLE.tech.id, PEOPLE.tech2.id, null];
+let made: MadeTicket[] = [];
 
 /** 5,000 invented tickets over 600 customers, in every status, some unassigned, some overdue, some with no promise. */
 beforeAll(() => {
   ctx = tempDb();
   closeDb();
   makeShop(ctx.db);
-  const rnd = seeded(6);
-  const pick = <T,>(xs: readonly T[]) => xs[Math.floor(rnd() * xs.length)]!;
-  const codes = new Set<string>();
-  const customerIds: Array<{ id: string; lastName: string }> = [];
-  ctx.db.transaction((tx) => {
-    for (let c = 0; c < 600; c++) {
-      const lastName = (pick(SYLLABLES) + pick(SYLLABLES) + pick(SYLLABLES)).replace(/^./, (x) => x.toUpperCase());
-      const id = `c-${c}`;
-      tx.insert(customers).values({ id, firstName: pick(["Ada", "Bo", "Cy", "Dee"]), lastName, phone: `555-01${String(c % 100).padStart(2, "0")}` }).run();
-      customerIds.push({ id, lastName });
-    }
-    for (let i = 0; i < N; i++) {
-      const cust = pick(customerIds);
-      const status = i % 10 === 9 ? pick(["handed_back", "returned_unrepaired"] as const) : pick(OPEN_STATUSES);
-      let tagCode = generateTagCode(rnd);
-      while (codes.has(tagCode)) tagCode = generateTagCode(rnd);
-      codes.add(tagCode);
-      const serial = `SN${String(100000 + i)}`;
-      const createdAt = NOW - Math.floor(rnd() * 60) * DAY_MS - Math.floor(rnd() * DAY_MS);
-      const promise = rnd();
-      const promisedDate = promise < 0.2 ? null : addDays(TODAY, Math.floor(promise * 20) - 8);
-      const techId = pick(TECHS);
-      tx.insert(machines).values({ id: `m-${i}`, customerId: cust.id, kind: pick(MACHINE_KINDS), engineType: "two_stroke", make: pick(["Tarnwick", "Quillam", "Orrin"]), model: `M-${i % 37}`, serial }).run();
-      tx.insert(tickets)
-        .values({ id: `t-${i}`, number: 10_000 + i, tagCode, machineId: `m-${i}`, customerId: cust.id, complaint: "Runs rough.", status, promisedDate, assignedTechId: techId, createdAt: new Date(createdAt), updatedAt: new Date(createdAt + DAY_MS / 2) })
-        .run();
-      made.push({ id: `t-${i}`, number: 10_000 + i, tagCode, status, techId, promisedDate, createdAt, lastName: cust.lastName, serial });
-    }
-  });
-  made = made.filter((t) => (OPEN_STATUSES as string[]).includes(t.status));
+  made = seedQueue(ctx.db, { tickets: N, customers: 600, techIds: [PEOPLE.tech.id, PEOPLE.tech2.id, null], now: NOW, timezone: "America/Chicago" }).filter((t) =>
+    (OPEN_STATUSES as string[]).includes(t.status),
+  );
 });
 afterAll(() => {
   closeDb();
