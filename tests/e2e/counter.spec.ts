@@ -112,3 +112,35 @@ test("looking up a sticker code opens the machine's history when nothing is open
   const wrong = await page.request.get(`/api/tags/${normalizeTagCode(code).slice(0, 6)}${code.endsWith("X") ? "Y" : "X"}`);
   expect(wrong.status()).toBe(400);
 });
+
+test.describe("on a desktop", () => {
+  test.use({ viewport: { width: 1440, height: 900 } });
+
+  test("a ready machine is handed back, and the same machine brought back is marked a comeback", async ({ page }) => {
+    await signInAs(page, DEMO.counter);
+    const board = new QueueBoardPage(page);
+    await board.goto();
+    await board.search("Teasdale");
+    const row = page.getByRole("table").getByRole("row").filter({ hasText: "Teasdale" });
+    await expect(row).toHaveCount(1);
+    await expect(row).toContainText("Ready for pickup");
+    await row.getByRole("link").first().click();
+
+    const handBack = page.getByRole("region", { name: "Hand-back" });
+    await expect(handBack.getByLabel("Collected by")).toHaveValue("Bram Teasdale");
+    await handBack.getByRole("button", { name: "Record hand-back and close" }).click();
+    await expect(handBack).toContainText("Handed back to Bram Teasdale");
+    await expect(page.getByRole("region", { name: "Status history" })).toContainText("Handed back to Bram Teasdale");
+    const number = (await page.getByText(/^#\d+$/).first().textContent())!.trim();
+
+    await page.getByRole("link", { name: "Machine history" }).click();
+    await page.getByRole("link", { name: "Take it in again" }).click();
+    await expect(page.getByText(/^On file:/).filter({ hasText: "Quarrow QB-44" })).toBeVisible();
+    await expect(page.getByLabel("Last name", { exact: true })).toHaveValue("Teasdale");
+    await page.getByRole("group", { name: "Quick picks" }).getByLabel("Won't start", { exact: true }).check();
+    await page.getByRole("button", { name: "Take in and print tag" }).click();
+    await expect(page).toHaveURL(/\/counter\/tickets\/[0-9a-f-]{36}\?taken=1$/);
+    // Same day, or the next one if the test runs across midnight in the shop's zone.
+    await expect(page.getByText(new RegExp(`^Comeback: back [01] days? after ${number} was handed back\\.$`))).toBeVisible();
+  });
+});

@@ -66,6 +66,7 @@ export default async function TicketPage({
   const today = dateIn(tz, Date.now());
   const overdue = open && t.promisedDate !== null && t.promisedDate < today;
   const labelHref = `/api/labels/tickets/${t.id}`;
+  const comebackDays = d.comebackOf?.closedAt ? daysBetween(dateIn(tz, d.comebackOf.closedAt), dateIn(tz, t.createdAt)) : null;
 
   return (
     <div className="flex flex-col gap-6">
@@ -94,7 +95,7 @@ export default async function TicketPage({
         {d.comebackOf ? (
           <p className="flex items-center gap-2 rounded-xl border-2 border-ink-2 px-3 py-2 font-semibold">
             <RotateCcw size={20} aria-hidden />
-            Comeback: back {d.comebackOf.closedAt ? daysBetween(dateIn(tz, d.comebackOf.closedAt), dateIn(tz, t.createdAt)) : "?"} days after{" "}
+            Comeback: back {comebackDays === null ? "soon" : `${comebackDays} day${comebackDays === 1 ? "" : "s"}`} after{" "}
             <Link href={`/counter/tickets/${d.comebackOf.id}`} className="underline underline-offset-4">
               #{d.comebackOf.number}
             </Link>{" "}
