@@ -74,6 +74,20 @@ test("the counter takes a machine in, prints a tag that scans back to its code, 
   await expect(history).toContainText("Bench 2 is free");
 });
 
+test("the board picks up a change made elsewhere without a reload", async ({ page }) => {
+  await signInAs(page, DEMO.counter);
+  const board = new QueueBoardPage(page);
+  await board.goto();
+  await board.search("Petrakis");
+  const card = page.getByRole("list", { name: "Open tickets" }).getByRole("listitem").filter({ hasText: "Petrakis" });
+  await expect(card).toContainText("Taken in");
+  const id = (await card.getByRole("link").first().getAttribute("href"))!.split("/").pop()!;
+  // Another counter (or a synced bench device) moves the ticket; this page is not touched.
+  const res = await page.request.post(`/api/counter/tickets/${id}/status`, { data: { from: "taken_in", to: "in_repair", reason: "" } });
+  expect(res.status()).toBe(200);
+  await expect(card).toContainText("In repair", { timeout: 15_000 });
+});
+
 test("a serial already on file is flagged before a second machine is saved", async ({ page }) => {
   await signInAs(page, DEMO.counter);
   const intake = new IntakePage(page);

@@ -39,8 +39,11 @@ export class QueueBoardPage {
     await expect(this.page.getByRole("heading", { name: "Queue" })).toBeVisible();
   }
 
+  /** Types into the search box and waits until the board shows the filtered answer. */
   async search(text: string) {
     await this.page.getByLabel("Search", { exact: true }).fill(text);
+    await expect(this.page.getByText(/^\d+ tickets? match/)).toBeVisible();
+    await expect(this.page.getByText(/ · refreshing…$/)).toHaveCount(0);
   }
 
   card(code: string): Locator {
