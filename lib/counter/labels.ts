@@ -43,8 +43,8 @@ function grid(page: { w: number; h: number }, cols: number, rows: number, label:
   return cells;
 }
 
-const LETTER = { w: inch(8.5), h: inch(11) }; // [ANSI/ASME Y14.1] US Letter 8.5 × 11 in
-const A4 = { w: mm(210), h: mm(297) }; // [ISO 216] A4 210 × 297 mm
+const LETTER = { w: inch(8.5), h: inch(11) }; // US Letter 8.5 × 11 in (ANSI/ASME Y14.1 size A)
+const A4 = { w: mm(210), h: mm(297) }; // A4 210 × 297 mm (ISO 216)
 
 export const LAYOUTS: Record<LayoutId, Layout> = {
   "label-4x2": { id: "label-4x2", name: "2 × 4 in label", page: { w: inch(4), h: inch(2) }, cells: [{ x: 0, y: 0, w: inch(4), h: inch(2) }] },

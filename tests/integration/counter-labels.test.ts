@@ -31,12 +31,12 @@ function cellCrop(layoutId: keyof typeof LAYOUTS, index: number) {
 
 describe("label layouts", () => {
   it("have the paper sizes they are named for", async () => {
-    // [ISO 32000-1 §8.3.2.3] PDF default user space unit = 1/72 in; [16 CFR 500.19 / NIST] 1 in = 25.4 mm
+    // [ISO 32000-1 §8.3.2.3, memory for the clause] PDF default user space unit = 1/72 in; [16 CFR 500.19 / NIST] 1 in = 25.4 mm
     expect(await pageSizes(await labelsPdf([LABEL], "label-4x2"))).toEqual([{ width: 288, height: 144 }]);
     const roll = (await pageSizes(await labelsPdf([LABEL], "roll-62")))[0]!;
     expect(roll.width).toBeCloseTo((100 / 25.4) * 72, 3);
     expect(roll.height).toBeCloseTo(175.748, 3); // 62 mm
-    // [ANSI/ASME Y14.1] US Letter 8.5 × 11 in = 612 × 792 pt
+    // [ANSI/ASME Y14.1 size A, memory] US Letter 8.5 × 11 in = 612 × 792 pt
     expect(await pageSizes(await labelsPdf([LABEL], "sheet-letter"))).toEqual([{ width: 612, height: 792 }]);
     // [ISO 216] A4 = 210 × 297 mm ≈ 595.28 × 841.89 pt
     const a4 = (await pageSizes(await labelsPdf([LABEL], "sheet-a4")))[0]!;
@@ -69,7 +69,7 @@ describe("label layouts", () => {
 
 describe("the barcode", () => {
   it("is Code 128 with the standard's symbol widths", () => {
-    // [ISO/IEC 15417] start (11 modules) + 7 data × 11 + check (11) + stop (13) = 112 modules,
+    // [ISO/IEC 15417, memory] start (11 modules) + 7 data × 11 + check (11) + stop (13) = 112 modules,
     // 6 bars and spaces per character and 7 in the stop pattern = 61 elements, each 1–4 modules wide
     const bars = code128Modules("HKRTNAD");
     expect(bars.reduce((a, b) => a + b, 0)).toBe(112);

@@ -34,8 +34,8 @@ function fieldErrors(values: IntakeValues, today = TODAY): Record<string, string
 
 describe("phone numbers", () => {
   it.each([
-    ["555-0142", "555-0142"], // [NANPA] 555-0100…0199 are set aside for fictional use; 7-digit local form
-    ["(312) 555-0142", "(312) 555-0142"], // [NANPA] 10 digits: 3-digit area code + 7-digit number
+    ["555-0142", "555-0142"], // [NANPA, memory] 555-0100…0199 are set aside for fictional use; 7-digit local form
+    ["(312) 555-0142", "(312) 555-0142"], // [NANPA, memory] 10 digits: 3-digit area code + 7-digit number
     ["+1 312 555 0142", "+1 312 555 0142"], // [ITU-T E.164] country code 1 + national number
     ["+44 20 7946 0958", "+44 20 7946 0958"], // [Ofcom, memory] 020 7946 0000–0999 reserved for drama use
     ["  555   0142 ", "555 0142"],
@@ -47,7 +47,7 @@ describe("phone numbers", () => {
     expect(checkPhone("555-CALL")).toMatchObject({ ok: false, message: expect.stringMatching(/digits only/) });
     expect(checkPhone("12ab")).toMatchObject({ ok: false, message: expect.stringMatching(/digits only/) });
     expect(checkPhone("555-014")).toMatchObject({ ok: false, message: expect.stringMatching(/6 digits; .* at least 7/) });
-    // [ITU-T E.164 §6] an international number has at most 15 digits
+    // [ITU-T E.164; memory for the clause] an international number has at most 15 digits
     expect(checkPhone("+123 456 789 012 345").ok).toBe(true);
     expect(checkPhone("+123 456 789 012 3456")).toMatchObject({ ok: false, message: expect.stringMatching(/16 digits; .* at most 15/) });
     expect(checkPhone("555+0142").ok).toBe(false); // "+" only leads
@@ -67,7 +67,7 @@ describe("calendar dates and the shop's time zone", () => {
   });
 
   it("reads today's date in the shop's zone, not the server's", () => {
-    // [IANA tz database; 15 U.S.C. §260a] Chicago is UTC−6 in winter, UTC−5 from the second Sunday of March
+    // [IANA tz database; 15 U.S.C. §260a, memory for the section] Chicago is UTC−6 in winter, UTC−5 from the second Sunday of March
     expect(dateIn("America/Chicago", Date.UTC(2026, 0, 15, 5, 30))).toBe("2026-01-14");
     expect(dateIn("America/Chicago", Date.UTC(2026, 0, 15, 6, 0))).toBe("2026-01-15");
     expect(dateIn("America/Chicago", Date.UTC(2026, 2, 10, 4, 59))).toBe("2026-03-09");
@@ -79,7 +79,7 @@ describe("calendar dates and the shop's time zone", () => {
     // [IANA tz database] Chicago: CDT (UTC−5) in July, CST (UTC−6) in January
     expect(zonedTimeToInstant("2026-07-01", "12:00", "America/Chicago")).toEqual({ ok: true, value: Date.UTC(2026, 6, 1, 17, 0) });
     expect(zonedTimeToInstant("2026-01-15", "12:00", "America/Chicago")).toEqual({ ok: true, value: Date.UTC(2026, 0, 15, 18, 0) });
-    // [15 U.S.C. §260a] 2026-03-08 (second Sunday of March): 02:00 jumps to 03:00, so 02:30 never happens
+    // [15 U.S.C. §260a, memory for the section] 2026-03-08 (second Sunday of March): 02:00 jumps to 03:00, so 02:30 never happens
     expect(zonedTimeToInstant("2026-03-08", "02:30", "America/Chicago")).toMatchObject({ ok: false });
     // 2026-11-01 (first Sunday of November): 01:30 happens twice; the first (still CDT) is taken
     expect(zonedTimeToInstant("2026-11-01", "01:30", "America/Chicago")).toEqual({ ok: true, value: Date.UTC(2026, 10, 1, 6, 30) });
@@ -98,7 +98,7 @@ describe("calendar dates and the shop's time zone", () => {
 
 describe("approval limit ('call before going over $N')", () => {
   it("parses dollars into whole cents", () => {
-    // [31 U.S.C. §5101] the dollar is divided into 100 cents
+    // [31 U.S.C. §5101, memory for the section] the dollar is divided into 100 cents
     expect(parseApprovalLimit("150")).toEqual({ ok: true, value: 15_000 });
     expect(parseApprovalLimit("$1,234.56")).toEqual({ ok: true, value: 123_456 });
     expect(parseApprovalLimit("75.5")).toEqual({ ok: true, value: 7_550 });
@@ -126,7 +126,7 @@ describe("the intake schema", () => {
     expect(fieldErrors(good({ phone: "12ab" }))).toEqual({ phone: expect.stringMatching(/digits only/) });
     expect(fieldErrors(good({ email: "wendeline@" }))).toEqual({ email: expect.stringMatching(/valid e-mail/) });
     expect(fieldErrors(good({ email: "wendeline example.org" }))).toHaveProperty("email");
-    // [RFC 5322 §3.4.1] addr-spec = local-part "@" domain: one "@" outside quotes
+    // [RFC 5322 §3.4.1, memory for the section] addr-spec = local-part "@" domain: one "@" outside quotes
     expect(fieldErrors(good({ email: "wendeline@@example.org" }))).toHaveProperty("email");
     expect(fieldErrors(good({ lastName: "  " }))).toEqual({ lastName: "Enter the customer's last name." });
     expect(fieldErrors(good({ approvalLimit: "12.345" }))).toEqual({ approvalLimit: expect.stringMatching(/whole cents/) });
