@@ -1,49 +1,59 @@
 import type { Metadata } from "next";
+import { Printer, PackagePlus } from "lucide-react";
 import { getDb } from "@/db/client";
 import { requirePageUser } from "@/lib/auth/guard";
-import { listOpenTickets } from "@/lib/tickets/queries";
-import { STATUS_LABELS } from "@/lib/tickets/status";
-import { MACHINE_KIND_LABELS } from "@/lib/tickets/machine";
-import { formatTagCode } from "@/lib/trade/tag-code";
+import { openTicketsTakenInToday, queuePage, queueQuerySchema } from "@/lib/counter/queue";
+import { getShopSettings } from "@/lib/shop/settings";
 import { PageHeader } from "@/components/ui/page-header";
+import { ButtonLink } from "@/components/ui/button";
+import { QueueBoard, type BoardParams } from "@/components/counter/queue-board";
 
 export const metadata: Metadata = { title: "Queue" };
 
-export default async function QueuePage() {
+export default async function QueuePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requirePageUser("/counter", "counter", "owner");
-  const rows = listOpenTickets(getDb());
+  const raw = Object.fromEntries(Object.entries(await searchParams).filter((e): e is [string, string] => typeof e[1] === "string"));
+  const parsed = queueQuerySchema.safeParse({ ...raw, pageSize: "25" });
+  const query = parsed.success ? parsed.data : queueQuerySchema.parse({ pageSize: "25" });
+  const db = getDb();
+  const tz = getShopSettings(db).timezone;
+  const initial = queuePage(db, query);
+  const initialParams: BoardParams = {
+    status: query.status,
+    tech: query.tech,
+    overdue: query.overdue || undefined,
+    q: query.q || undefined,
+    sort: query.sort,
+    dir: query.dir,
+    page: initial.page,
+  };
+
+  const today = openTicketsTakenInToday(db);
+
   return (
     <>
-      <PageHeader title="Queue" subtitle={`${rows.length} machines in the shop`} />
-      <div className="overflow-x-auto rounded-2xl border border-line bg-surface">
-        <table className="w-full text-left">
-          <thead className="bg-surface-2 text-sm uppercase tracking-wide text-muted">
-            <tr>
-              <th scope="col" className="px-4 py-3">Ticket</th>
-              <th scope="col" className="px-4 py-3">Tag</th>
-              <th scope="col" className="px-4 py-3">Customer</th>
-              <th scope="col" className="px-4 py-3">Machine</th>
-              <th scope="col" className="px-4 py-3">Status</th>
-              <th scope="col" className="px-4 py-3">Tech</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((t) => (
-              <tr key={t.id} className="border-t border-line">
-                <td className="px-4 py-3 font-semibold">#{t.number}</td>
-                <td className="px-4 py-3 font-mono">{formatTagCode(t.tagCode)}</td>
-                <td className="px-4 py-3">{t.customerLastName}, {t.customerFirstName}</td>
-                <td className="px-4 py-3">
-                  {t.machineMake} {t.machineModel}
-                  <span className="block text-sm text-muted">{MACHINE_KIND_LABELS[t.machineKind]}</span>
-                </td>
-                <td className="px-4 py-3">{STATUS_LABELS[t.status]}</td>
-                <td className="px-4 py-3">{t.techName ?? "—"}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <PageHeader
+        title="Queue"
+        subtitle="Open tickets, refreshed every few seconds as the bench syncs."
+        actions={
+          <>
+            <ButtonLink href="/counter/intake">
+              <PackagePlus size={20} aria-hidden /> Take in a machine
+            </ButtonLink>
+            {today.length ? (
+              <a
+                href={`/api/labels/sheet?layout=sheet-letter&tickets=${today.map((t) => t.id).join(",")}`}
+                target="_blank"
+                rel="noopener"
+                className="tap inline-flex items-center gap-2 rounded-xl border-2 border-line bg-surface px-4 font-semibold hover:border-accent"
+              >
+                <Printer size={20} aria-hidden /> Today&apos;s {today.length} tag{today.length === 1 ? "" : "s"} (sheet)
+              </a>
+            ) : null}
+          </>
+        }
+      />
+      <QueueBoard initial={initial} initialParams={initialParams} timezone={tz} />
     </>
   );
 }

@@ -11,6 +11,8 @@ export interface NavItem {
 /** The one list of staff navigation; each item names the roles that see it. */
 export const NAV_ITEMS: readonly NavItem[] = [
   { href: "/counter", label: "Queue", icon: "queue", roles: ["counter", "owner"], section: "shop" },
+  { href: "/counter/intake", label: "Take in", icon: "intake", roles: ["counter", "owner"], section: "shop" },
+  { href: "/counter/history", label: "History", icon: "history", roles: ["counter", "owner"], section: "shop" },
   { href: "/bench", label: "Bench", icon: "bench", roles: ["tech", "counter", "owner"], section: "shop" },
   { href: "/tools", label: "Shop tools", icon: "tools", roles: ["tech", "counter", "owner"], section: "shop" },
   { href: "/owner/people", label: "People", icon: "people", roles: ["owner"], section: "owner" },

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { index, integer, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from "drizzle-orm/sqlite-core";
 import { ENGINE_TYPES, MACHINE_KINDS } from "../../lib/tickets/machine";
 import { ROLES } from "../../lib/auth/roles";
 import { TICKET_STATUSES } from "../../lib/tickets/status";
@@ -116,6 +116,8 @@ export const tickets = sqliteTable(
     approvalLimitCents: integer("approval_limit_cents"),
     assignedTechId: text("assigned_tech_id").references(() => users.id),
     createdById: text("created_by_id").references(() => users.id),
+    /** Set at intake when the machine came back within the comeback window after this earlier ticket's hand-back. */
+    comebackOfTicketId: text("comeback_of_ticket_id").references((): AnySQLiteColumn => tickets.id),
     /** Header version for optimistic concurrency (device edits carry the version they were made from). */
     version: integer("version").notNull().default(1),
     createdAt: stamp("created_at").notNull().default(now),
@@ -129,6 +131,7 @@ export const tickets = sqliteTable(
     index("tickets_machine_idx").on(t.machineId),
     index("tickets_customer_idx").on(t.customerId),
     index("tickets_tech_idx").on(t.assignedTechId),
+    index("tickets_status_promised_idx").on(t.status, t.promisedDate),
   ],
 );
 

@@ -1,7 +1,7 @@
 import crypto from "node:crypto";
 import { eq, sql } from "drizzle-orm";
 import type { Db } from "../../db/client";
-import { shopSettings, tickets } from "../../db/schema";
+import { machines, shopSettings, ticketTags, tickets } from "../../db/schema";
 import { generateTagCode } from "../trade/tag-code";
 import { audit } from "../audit/log";
 import type { TicketStatus } from "./status";
@@ -21,15 +21,27 @@ export interface NewTicket {
   approvalLimitCents?: number | null;
   assignedTechId?: string | null;
   createdById?: string | null;
+  comebackOfTicketId?: string | null;
   createdAt?: Date;
 }
 
-/** A tag code no ticket or machine sticker uses yet. */
-export function uniqueTagCode(tx: Pick<Db, "select">, random: () => number = Math.random): string {
+/**
+ * True when a code is already in use anywhere: a ticket's tag, a retired (replaced) tag, or a machine's
+ * permanent sticker. Tags and stickers share one code system, so a scan always means one thing.
+ */
+export function isTagCodeTaken(tx: Pick<Db, "select">, code: string): boolean {
+  return Boolean(
+    tx.select({ id: tickets.id }).from(tickets).where(eq(tickets.tagCode, code)).get() ??
+      tx.select({ code: ticketTags.code }).from(ticketTags).where(eq(ticketTags.code, code)).get() ??
+      tx.select({ id: machines.id }).from(machines).where(eq(machines.stickerCode, code)).get(),
+  );
+}
+
+/** A tag code no ticket, retired tag or machine sticker uses yet. */
+export function uniqueTagCode(tx: Pick<Db, "select">, random?: () => number): string {
   for (let attempt = 0; attempt < 50; attempt++) {
     const code = generateTagCode(random);
-    const taken = tx.select({ id: tickets.id }).from(tickets).where(eq(tickets.tagCode, code)).get();
-    if (!taken) return code;
+    if (!isTagCodeTaken(tx, code)) return code;
   }
   throw new Error("Could not find a free tag code");
 }
@@ -63,10 +75,11 @@ export function insertTicket(tx: Tx, input: NewTicket, random?: () => number): {
       approvalLimitCents: input.approvalLimitCents ?? null,
       assignedTechId: input.assignedTechId ?? null,
       createdById: input.createdById ?? null,
+      comebackOfTicketId: input.comebackOfTicketId ?? null,
       createdAt,
       updatedAt: createdAt,
     })
     .run();
-  audit(tx, { actorId: input.createdById ?? null, action: "ticket.created", entity: "ticket", entityId: id, details: { number, tagCode } });
+  audit(tx, { actorId: input.createdById ?? null, action: "ticket.created", entity: "ticket", entityId: id, details: { number, tagCode, comebackOfTicketId: input.comebackOfTicketId ?? null } });
   return { id, number, tagCode };
 }
