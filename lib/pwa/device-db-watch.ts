@@ -32,7 +32,8 @@ export function keepDeviceDbOpen(
   }
 
   function onClose() {
-    if (events.document.visibilityState === "visible") void reopen();
+    // Dexie fires "close" before it finishes closing: reopen once the current task is done.
+    if (events.document.visibilityState === "visible") queueMicrotask(() => void reopen());
   }
   function onVisibility() {
     if (events.document.visibilityState === "visible") void reopen();
