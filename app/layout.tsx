@@ -31,8 +31,8 @@ export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en" className={inter.variable}>
       <body className="min-h-dvh font-sans antialiased">
-        {children}
         <PwaRuntime />
+        {children}
       </body>
     </html>
   );

@@ -84,7 +84,9 @@ export function DevicePanel() {
         ? { text: "Not ready", detail: "The offline copy could not be set up. Reload this screen with a network." }
         : pwa.controlled
           ? { text: "Ready", detail: "The bench, scanning and the shop tools open here with no network." }
-          : { text: "Getting ready…", detail: "Keep this screen open with a network for a moment." };
+          : pwa.installedWorker
+            ? { text: "Ready next time", detail: "The offline copy is on this phone; it takes over the next time Benchwright opens." }
+            : { text: "Getting ready…", detail: "Keep this screen open with a network for a moment." };
 
   return (
     <BenchShell title="This phone">

@@ -7,9 +7,6 @@ import { Button } from "@/components/ui/button";
 import { updateWarning } from "@/lib/pwa/update-policy";
 import { dismissUpdateWarning, requestUpdate, screenChanged, startPwa, usePwa } from "./pwa-store";
 
-/** The bench screens have the action bar at the bottom: the banner sits above it there. */
-const onBench = (path: string) => path === "/bench" || path.startsWith("/bench/") || path.startsWith("/tools");
-
 /**
  * Mounted once in the root layout: registers the service worker, and shows "update ready" (and the warning
  * before an update that would not wait for the outbox).
@@ -28,19 +25,19 @@ export function PwaRuntime() {
     else dialog.current?.close();
   }, [warning]);
 
-  const bottom = onBench(pathname) ? "bottom-[calc(6rem+env(safe-area-inset-bottom))]" : "bottom-4";
   const showReady = pwa.update !== "none";
   const pending = pwa.pendingChanges ?? 0;
 
   return (
     <>
       {showReady || pwa.replacedElsewhere ? (
-        <div className={`fixed inset-x-0 z-20 px-3 ${bottom}`}>
+        // In the page's flow, above everything, so it never covers a control or a field.
+        <div className="px-3 pt-3">
           <div
             role="status"
             aria-live="polite"
             data-testid="update-banner"
-            className="mx-auto flex max-w-2xl flex-wrap items-center gap-3 rounded-2xl border-2 border-accent bg-surface px-4 py-3 shadow-lg"
+            className="mx-auto flex max-w-2xl flex-wrap items-center gap-3 rounded-2xl border-2 border-accent bg-surface px-4 py-3"
           >
             <RefreshCw size={24} aria-hidden className="shrink-0 text-accent" />
             <div className="min-w-0 flex-1">

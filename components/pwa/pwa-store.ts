@@ -16,6 +16,8 @@ export interface PwaState {
   worker: "unsupported" | "starting" | "ready" | "failed";
   /** A service worker controls this page (so it reloads with no network). */
   controlled: boolean;
+  /** The worker is installed and active (a page that loaded during the install is controlled from its next load). */
+  installedWorker: boolean;
   /** This page's build (from the bundle). */
   appVersion: string;
   /** The version of the controlling and the waiting worker, as they answer GET_VERSION. */
@@ -38,6 +40,7 @@ const APP_VERSION = `${process.env.NEXT_PUBLIC_APP_VERSION ?? "0"}+${process.env
 let state: PwaState = {
   worker: "starting",
   controlled: false,
+  installedWorker: false,
   appVersion: APP_VERSION,
   activeVersion: null,
   waitingVersion: null,
@@ -206,6 +209,7 @@ async function register() {
   }
   const reg = registration;
   set({ worker: "ready", controlled: Boolean(sw.controller) });
+  void sw.ready.then(() => set({ installedWorker: true }));
   void askVersion(sw.controller).then((activeVersion) => set({ activeVersion }));
 
   reg.addEventListener("updatefound", () => {
