@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { usePathname } from "next/navigation";
-import { useEffect, type ReactNode } from "react";
+import type { ReactNode } from "react";
 import { ListTodo, ScanLine, Calculator, Smartphone } from "lucide-react";
 
 const ACTIONS = [
@@ -15,18 +15,6 @@ const ACTIONS = [
 /** The phone layout of the bench: content above, the main actions in thumb reach at the bottom. */
 export function BenchShell({ title, status, children }: { title: ReactNode; status?: ReactNode; children: ReactNode }) {
   const current = usePathname() ?? "";
-  // Reopen the device store if the browser closed it while the app was in the background.
-  useEffect(() => {
-    let stop: (() => void) | undefined;
-    let left = false;
-    void import("@/lib/pwa/device-db-watch").then((m) => {
-      if (!left) stop = m.keepDeviceDbOpen();
-    });
-    return () => {
-      left = true;
-      stop?.();
-    };
-  }, []);
   return (
     <div className="flex min-h-dvh flex-col">
       <header className="sticky top-0 z-10 flex items-center justify-between gap-3 border-b border-line bg-surface/95 px-4 py-3 backdrop-blur">

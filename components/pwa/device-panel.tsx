@@ -165,7 +165,7 @@ export function DevicePanel() {
               {pending === null ? "Unknown" : pending}
             </Row>
           </dl>
-          <Link href="/bench/sync" className={buttonClass("secondary", "bench")}>
+          <Link href="/bench/sync" prefetch={false} className={buttonClass("secondary", "bench")}>
             Open sync
           </Link>
         </Section>

@@ -1,4 +1,4 @@
-import { getDeviceDb, type DeviceDb } from "@/lib/sync/device-db";
+import type { DeviceDb } from "@/lib/sync/device-db";
 
 /** What the watcher listens to; the browser's `document` and `window` by default (tests pass their own). */
 export interface PageEvents {
@@ -9,12 +9,9 @@ export interface PageEvents {
 /**
  * Keeps the device store's connection open: browsers may close IndexedDB while the app sits in the background
  * (or when storage is cleared under it). When that happens, or when the app comes back to the foreground, the
- * connection is opened again so the next read or write does not fail.
+ * connection is opened again so the next read or write does not fail. Started by getDeviceDb() on first use.
  */
-export function keepDeviceDbOpen(
-  events: PageEvents = { document, window },
-  open: () => Promise<DeviceDb> = getDeviceDb,
-): () => void {
+export function keepDeviceDbOpen(open: () => Promise<DeviceDb>, events: PageEvents = { document, window }): () => void {
   const watched = new WeakSet<DeviceDb>();
   let stopped = false;
 

@@ -55,7 +55,7 @@ describe("keepDeviceDbOpen", () => {
   it("opens the store at start", async () => {
     const page = new FakePage();
     const { db, open } = store();
-    cleanups.push(keepDeviceDbOpen(page, open));
+    cleanups.push(keepDeviceDbOpen(open, page));
     await until(() => db.isOpen());
     expect(db.isOpen()).toBe(true);
   });
@@ -63,7 +63,7 @@ describe("keepDeviceDbOpen", () => {
   it("reopens at once when the browser drops the connection while the app is visible", async () => {
     const page = new FakePage();
     const { db, open } = store();
-    cleanups.push(keepDeviceDbOpen(page, open));
+    cleanups.push(keepDeviceDbOpen(open, page));
     await until(() => db.isOpen());
     await db.outbox.add({ seq: 1, mutationId: "m-1", deviceId: "d-1", name: "note.add", args: {}, at: "2026-05-04T10:00:00.000Z" });
 
@@ -77,7 +77,7 @@ describe("keepDeviceDbOpen", () => {
   it("in the background waits, then reopens when the app comes back to the foreground", async () => {
     const page = new FakePage();
     const { db, open } = store();
-    cleanups.push(keepDeviceDbOpen(page, open));
+    cleanups.push(keepDeviceDbOpen(open, page));
     await until(() => db.isOpen());
 
     page.visibility = "hidden";
@@ -94,7 +94,7 @@ describe("keepDeviceDbOpen", () => {
   it("reopens on pageshow (a page restored from the back-forward cache)", async () => {
     const page = new FakePage();
     const { db, open } = store();
-    const stop = keepDeviceDbOpen(page, open);
+    const stop = keepDeviceDbOpen(open, page);
     cleanups.push(stop);
     await until(() => db.isOpen());
     page.visibility = "hidden";
@@ -108,7 +108,7 @@ describe("keepDeviceDbOpen", () => {
   it("stops listening when stopped", async () => {
     const page = new FakePage();
     const { db, open } = store();
-    const stop = keepDeviceDbOpen(page, open);
+    const stop = keepDeviceDbOpen(open, page);
     await until(() => db.isOpen());
     stop();
     page.visibility = "hidden";
