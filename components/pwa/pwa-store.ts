@@ -264,7 +264,12 @@ export function startPwa(): void {
     set({ worker: "unsupported" });
     return;
   }
-  void register();
+  // After the page has loaded and the main thread is idle: installing the offline copy fetches the whole app,
+  // which must not compete with the first screen.
+  const whenIdle = () =>
+    "requestIdleCallback" in window ? window.requestIdleCallback(() => void register(), { timeout: 3000 }) : setTimeout(() => void register(), 0);
+  if (document.readyState === "complete") whenIdle();
+  else window.addEventListener("load", whenIdle, { once: true });
 }
 
 // ---- installing to the home screen ----------------------------------------------------------------------------
