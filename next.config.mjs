@@ -1,10 +1,11 @@
+import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import withSerwistInit from "@serwist/next";
 import { shellPrecacheEntries, sourceRevision } from "./lib/pwa/precache.mjs";
 
 const root = path.dirname(fileURLToPath(import.meta.url));
-const pkg = (await import("./package.json", { with: { type: "json" } })).default;
+const pkg = JSON.parse(fs.readFileSync(path.join(root, "package.json"), "utf8"));
 
 /** One version for the HTML, the RSC payloads and the app's "version" line: a hash of the sources. */
 const revision = process.env.BENCHWRIGHT_REVISION || sourceRevision(root);
