@@ -1,3 +1,33 @@
+import fs from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import withSerwistInit from "@serwist/next";
+import { shellPrecacheEntries, sourceRevision } from "./lib/pwa/precache.mjs";
+
+const root = path.dirname(fileURLToPath(import.meta.url));
+const pkg = JSON.parse(fs.readFileSync(path.join(root, "package.json"), "utf8"));
+
+/** One version for the HTML, the RSC payloads and the app's "version" line: a hash of the sources. */
+const revision = process.env.BENCHWRIGHT_REVISION || sourceRevision(root);
+process.env.BENCHWRIGHT_REVISION = revision;
+
+const { entries, missing } = shellPrecacheEntries({ root, revision });
+if (missing.length && !process.env.BENCHWRIGHT_QUIET_PRECACHE) {
+  process.env.BENCHWRIGHT_QUIET_PRECACHE = "1";
+  console.warn(`[benchwright] offline shell: no page yet for ${missing.join(", ")} (left out of the precache)`);
+}
+
+const withSerwist = withSerwistInit({
+  swSrc: "worker/sw.ts",
+  swDest: "public/sw.js",
+  // The app registers the worker itself (components/pwa) and decides when an update may take over.
+  register: false,
+  // Never reload on "online": a half-filled bench sheet must survive the network coming back.
+  reloadOnOnline: false,
+  cacheOnNavigation: false,
+  additionalPrecacheEntries: entries,
+});
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
@@ -6,6 +36,22 @@ const nextConfig = {
   experimental: {
     authInterrupts: true,
   },
+  env: {
+    NEXT_PUBLIC_APP_VERSION: pkg.version,
+    NEXT_PUBLIC_APP_REVISION: revision,
+  },
+  async headers() {
+    return [
+      {
+        // The worker script is always checked against the server, so an update is found on the next visit.
+        source: "/sw.js",
+        headers: [
+          { key: "Cache-Control", value: "no-cache, no-store, must-revalidate" },
+          { key: "Service-Worker-Allowed", value: "/" },
+        ],
+      },
+    ];
+  },
 };
 
-export default nextConfig;
+export default withSerwist(nextConfig);

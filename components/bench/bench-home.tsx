@@ -4,6 +4,7 @@ import { useEffect, useState } from "react";
 import { BenchShell } from "./bench-shell";
 import { Notice } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
+import { AskPersistentStorage } from "@/components/pwa/ask-persistent-storage";
 
 interface DeviceUser {
   id: string;
@@ -21,6 +22,7 @@ const KEY = "benchwright.deviceUser";
 export function BenchHome() {
   const [user, setUser] = useState<DeviceUser | null>(null);
   const [state, setState] = useState<"loading" | "ready" | "signed-out">("loading");
+  const [signedInHere, setSignedInHere] = useState(false);
 
   useEffect(() => {
     const stored = localStorage.getItem(KEY);
@@ -38,6 +40,7 @@ export function BenchHome() {
         const body = (await res.json()) as { user: DeviceUser };
         localStorage.setItem(KEY, JSON.stringify(body.user));
         setUser(body.user);
+        setSignedInHere(true);
         setState("ready");
       })
       .catch(() => setState(stored ? "ready" : "signed-out"));
@@ -45,6 +48,7 @@ export function BenchHome() {
 
   return (
     <BenchShell title="Today's work">
+      {signedInHere ? <AskPersistentStorage /> : null}
       {state === "signed-out" ? (
         <div className="flex flex-col gap-4">
           <Notice tone="info" title="Not signed in on this phone">

@@ -33,6 +33,8 @@ export function BenchShell({ title, status, children }: { title: ReactNode; stat
               <li key={href}>
                 <Link
                   href={href}
+                  // No prefetching: the service worker answers these screens from the phone's own copy.
+                  prefetch={false}
                   aria-current={active ? "page" : undefined}
                   className={
                     "tap-bench flex flex-col items-center justify-center gap-1 rounded-2xl text-sm font-bold " +

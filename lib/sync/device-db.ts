@@ -1,4 +1,5 @@
 import Dexie, { type EntityTable } from "dexie";
+import { keepDeviceDbOpen } from "@/lib/pwa/device-db-watch";
 
 /**
  * The device store (IndexedDB through Dexie). Skeleton: the sync engine owns and extends this schema;
@@ -34,10 +35,16 @@ export class DeviceDb extends Dexie {
 }
 
 let instance: DeviceDb | undefined;
+let watching = false;
 
 /** The one connection; reopened if the browser closed it while the app was in the background. */
 export async function getDeviceDb(): Promise<DeviceDb> {
   instance ??= new DeviceDb();
+  // In the browser, reopen it as soon as it is dropped or the app comes back to the foreground.
+  if (!watching && typeof document !== "undefined") {
+    watching = true;
+    keepDeviceDbOpen(getDeviceDb);
+  }
   if (!instance.isOpen()) await instance.open();
   return instance;
 }

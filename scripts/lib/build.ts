@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { spawnSync } from "node:child_process";
+import { checkServiceWorker } from "./check-sw";
 
 const SOURCES = ["app", "components", "lib", "db", "worker", "public", "next.config.mjs", "package-lock.json", "tsconfig.json", "postcss.config.mjs"];
 const IGNORED = new Set(["sw.js", "sw.js.map"]);
@@ -18,6 +19,8 @@ function newestMtime(p: string): number {
 export function buildIsStale(root = process.cwd()): boolean {
   const marker = path.join(root, ".next", "BUILD_ID");
   if (!fs.existsSync(marker)) return true;
+  // The service worker is written into public/ by the build: without it the build is incomplete.
+  if (!fs.existsSync(path.join(root, "public", "sw.js"))) return true;
   const built = fs.statSync(marker).mtimeMs;
   return SOURCES.some((s) => newestMtime(path.join(root, s)) > built);
 }
@@ -32,6 +35,11 @@ export function runBuild(): void {
   if (r.status !== 0) {
     console.error("[benchwright] the build failed");
     process.exit(r.status ?? 1);
+  }
+  const problems = checkServiceWorker();
+  if (problems.length) {
+    for (const p of problems) console.error(`[benchwright] ${p}`);
+    process.exit(1);
   }
   console.log(`[benchwright] build finished in ${((Date.now() - started) / 1000).toFixed(0)} s`);
 }
