@@ -270,8 +270,12 @@ test.describe("safe updates", () => {
 
       await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Queue" }).click();
       await expect(page.getByRole("heading", { name: "Queue" })).toBeVisible();
-      // The page reloads under the update: a question asked mid-reload has no answer yet.
-      await expect.poll(() => controllerVersion(page).catch(() => null), { timeout: 20_000 }).toBe("e2e-version-4");
+      // Wait without messaging the old worker: Chromium holds a waiting worker's activation while the active one
+      // still has events in flight, so polling it with GET_VERSION would itself delay the update.
+      await expect
+        .poll(() => hasWaitingWorker(page).catch(() => true), { timeout: 20_000, intervals: [500] })
+        .toBe(false);
+      await expect.poll(() => controllerVersion(page).catch(() => null), { timeout: 10_000, intervals: [1000] }).toBe("e2e-version-4");
     } finally {
       next.restore();
     }
