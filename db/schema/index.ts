@@ -1,1 +1,3 @@
 export * from "./core";
+export * from "./bench";
+export * from "./sync";
