@@ -4,7 +4,6 @@ import type { Db } from "@/db/client";
 import type { CurrentUser } from "@/lib/auth/guard";
 import { AppError, zodFields } from "@/lib/http/errors";
 import { STATUS_LABELS, type TicketStatus } from "@/lib/tickets/status";
-import { startTune, applyTuneEntry, type TuneState, type Screw } from "@/lib/trade/tune";
 import {
   BENCH_STATUSES,
   MUTATION_ENTITY,
@@ -21,6 +20,7 @@ import {
   type TuneEntryRow,
 } from "../protocol";
 import { changedFinding, createdRow, isRefusal, stoppedLabor, voidedEntry } from "../rows";
+import { tuneEntryProblem } from "../rules";
 import { bindDevice, storeReport } from "./devices";
 import { currentChange, factsOfTicket, insertRow, maxVersion, readRow, stmt, ticketHead, updateRow, type TicketHead } from "./store";
 
@@ -43,34 +43,6 @@ function openTicket(db: Db, ticketId: string): TicketHead | Outcome {
   return head;
 }
 const isOutcome = (x: unknown): x is Outcome => typeof x === "object" && x !== null && "ok" in x;
-
-/** Replays the tune log of a ticket with the new entry, using lib/trade/tune's rules (a seated screw cannot go further in). */
-function checkTuneLog(existing: TuneEntryRow[], next: TuneEntryRow): string | null {
-  const run = (entries: TuneEntryRow[]): string | null => {
-    const start = startTune();
-    if (!start.ok) return start.message;
-    let state: TuneState = start.value;
-    for (const e of entries) {
-      if (e.kind === "baseline") {
-        const b = startTune({
-          [e.screw]: e.baselineKind === "seated-then-out" ? { kind: "seated-then-out", eighths: e.eighths } : { kind: "as-found" },
-        } as Partial<Record<Screw, never>>);
-        if (!b.ok) return b.message;
-        state = { ...state, [e.screw]: b.value[e.screw] };
-      } else {
-        const r = applyTuneEntry(state, { screw: e.screw, direction: e.direction ?? "cw", eighths: e.eighths });
-        if (!r.ok) return r.message;
-        state = r.value;
-      }
-    }
-    return null;
-  };
-  const byTime = (a: TuneEntryRow, b: TuneEntryRow) => (a.at < b.at ? -1 : a.at > b.at ? 1 : a.id < b.id ? -1 : 1);
-  const all = [...existing, next].sort(byTime);
-  const problem = run(all);
-  if (problem && !run([...existing].sort(byTime))) return problem;
-  return null;
-}
 
 /** Applies one validated mutation. Throws only on a bug (the batch is then rolled back whole). */
 function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<string, unknown>, ctx: { at: string; mutationId: string; deviceId: string }): Outcome {
@@ -97,7 +69,7 @@ function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<st
       }
       const row = createdRow(name, args as never, user.id) as unknown as Record<string, unknown>;
       if (name === "tune.recorded") {
-        const problem = checkTuneLog(factsOfTicket(db, "tune_entry", ticket.id), row as unknown as TuneEntryRow);
+        const problem = tuneEntryProblem(factsOfTicket(db, "tune_entry", ticket.id), row as unknown as TuneEntryRow);
         if (problem) return reject("tune_refused", problem);
       }
       insertRow(db, entity, row);
