@@ -88,6 +88,31 @@ describe("GET /api/sync/pull", () => {
     expect(apply(new Map(), changes)).toEqual(serverView(db));
   });
 
+  it("still delivers a ticket whole when it is reassigned to the tech in the middle of a first pull", async () => {
+    // Found by the simulation (seed 130): a ticket reassigned to the tech after the "my tickets" phase
+    // passed its number, before the "other tickets" phase reached it, arrived without its machine.
+    const deviceId = uid();
+    const numberOf = (id: string) => (db.$client.prepare("SELECT number FROM tickets WHERE id = ?").get(id) as { number: number }).number;
+    const token = (s: string | null) => (s ? JSON.parse(Buffer.from(s, "base64url").toString()) : null);
+    const changes: Change[] = [];
+    let page = (await pull(TECH, { deviceId, cursor: 0, limit: 1 })).body;
+    changes.push(...page.changes);
+    let moved = false;
+    while (page.more) {
+      const t = token(page.snapshot);
+      if (!moved && t?.p === 1 && t.a === numberOf(T(5))) {
+        db.$client.prepare("UPDATE tickets SET assigned_tech_id = ? WHERE id = ?").run(TECH.id, T(4)); // was TECH2's
+        moved = true;
+      }
+      page = (await pull(TECH, { deviceId, cursor: page.cursor, limit: 1, ...(page.snapshot ? { snapshot: page.snapshot } : {}) })).body;
+      changes.push(...page.changes);
+    }
+    expect(moved).toBe(true);
+    const store = apply(new Map(), changes);
+    expect(store.has("machine:00000000-0000-4000-8200-000000000004")).toBe(true);
+    expect(store).toEqual(serverView(db));
+  });
+
   it("then sends only what changed since the cursor, in pages, with the cursor moving forward", async () => {
     const first = await pullAll(TECH);
     expect((await pull(TECH, { deviceId: first.deviceId, cursor: first.cursor })).body).toMatchObject({ changes: [], more: false, cursor: first.cursor });

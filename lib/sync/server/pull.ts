@@ -76,12 +76,21 @@ function snapshotPage(db: Db, user: CurrentUser, token: SnapshotToken, limit: nu
       continue;
     }
     const mine: boolean = t.p === 1;
-    const where = mine ? "assigned_tech_id = ?" : "(assigned_tech_id IS NULL OR assigned_tech_id <> ?)";
-    const next = stmt(db, `SELECT ${TICKET_COLUMNS} FROM tickets WHERE ${where} AND status NOT IN ${CLOSED_SQL} AND number > ? ORDER BY number LIMIT 1`);
+    // Phase 2 also takes the person's tickets that changed after the snapshot began: one reassigned to
+    // them after phase 1 passed must still arrive whole (with its machine, customer and facts).
+    const next = mine
+      ? stmt(db, `SELECT ${TICKET_COLUMNS} FROM tickets WHERE assigned_tech_id = ? AND status NOT IN ${CLOSED_SQL} AND number > ? ORDER BY number LIMIT 1`)
+      : stmt(
+          db,
+          `SELECT ${TABLES.ticket.columns.map(([, c]) => `t.${c}`).join(", ")} FROM tickets t
+             LEFT JOIN change_log cl ON cl.entity = 'ticket' AND cl.entity_id = t.id
+            WHERE (t.assigned_tech_id IS NULL OR t.assigned_tech_id <> ? OR cl.version > ?)
+              AND t.status NOT IN ${CLOSED_SQL} AND t.number > ? ORDER BY t.number LIMIT 1`,
+        );
     let after: number = typeof t.a === "number" ? t.a : -1;
     let exhausted = false;
     while (changes.length < limit) {
-      const raw = next.get(user.id, after) as Record<string, unknown> | undefined;
+      const raw = (mine ? next.get(user.id, after) : next.get(user.id, t.v, after)) as Record<string, unknown> | undefined;
       if (!raw) {
         exhausted = true;
         break;
