@@ -64,7 +64,7 @@ export function SyncBadge() {
       data-testid="sync-badge"
       data-state={live.running ? "syncing" : offline ? "offline" : waiting ? "waiting" : status?.lastSyncAt ? "synced" : "never"}
       data-last-sync={status?.lastSyncAt ?? ""}
-      className={`tap relative flex shrink-0 items-center gap-2 overflow-visible rounded-xl border-2 bg-surface px-2.5 py-1 ${tone}`}
+      className={`tap relative flex shrink-0 items-center gap-2 overflow-visible rounded-xl border-2 bg-surface py-1 pl-2.5 ${attention ? "pr-5" : "pr-2.5"} ${tone}`}
     >
       <Icon size={22} aria-hidden strokeWidth={2.2} className={live.running ? "animate-spin" : undefined} />
       <span className="flex flex-col text-left leading-tight">

@@ -111,7 +111,7 @@ function SignOut({ waiting, attention }: { waiting: number; attention: number })
         <Button size="bench" onClick={() => { setAsking(false); void requestSync(); }}>
           Sync first
         </Button>
-        <Button variant="danger" size="bench" disabled={busy} onClick={() => void signOut()}>
+        <Button variant="danger" size="bench" disabled={busy || !live.online} onClick={() => void signOut()}>
           Sign out anyway
         </Button>
       </div>
@@ -151,7 +151,11 @@ export function SyncPage() {
         <section aria-labelledby="sync-now" className="flex flex-col gap-3 rounded-2xl border border-line bg-surface p-4">
           <h2 id="sync-now" className="text-lg font-bold">
             {offline ? "Offline · " : ""}
-            {waiting ? `${waiting} change${waiting === 1 ? "" : "s"} waiting to go out` : "Everything recorded here is sent"}
+            {waiting
+              ? `${waiting} change${waiting === 1 ? "" : "s"} waiting to go out`
+              : attention.length
+                ? `Nothing waiting · ${attention.length} need${attention.length === 1 ? "s" : ""} attention`
+                : "Everything recorded here is sent"}
           </h2>
           <p className="text-muted">
             {status?.lastSyncAt ? `Last synced ${timeAgo(status.lastSyncAt, now)}` : "Not synced yet"}
@@ -196,7 +200,12 @@ export function SyncPage() {
               </p>
             </div>
           ) : null}
-          <Button size="bench" onClick={() => void requestSync()} disabled={live.running || session.kind !== "ready"}>
+          <Button
+            size="bench"
+            variant={status?.sessionExpired ? "secondary" : "primary"}
+            onClick={() => void requestSync()}
+            disabled={live.running || session.kind !== "ready"}
+          >
             <RefreshCw size={22} aria-hidden className={live.running ? "animate-spin" : undefined} />
             {live.running ? "Syncing…" : "Sync now"}
           </Button>
