@@ -137,7 +137,7 @@ CREATE TABLE `applied_mutations` (
 	`user_id` text NOT NULL,
 	`outcome` text NOT NULL,
 	`reason` text,
-	`args` text NOT NULL,
+	`args` text,
 	`at` integer NOT NULL,
 	`applied_at` integer DEFAULT (cast(unixepoch('subsecond') * 1000 as integer)) NOT NULL,
 	FOREIGN KEY (`device_id`) REFERENCES `devices`(`id`) ON UPDATE no action ON DELETE no action,

@@ -39,7 +39,8 @@ export const appliedMutations = sqliteTable(
     userId: text("user_id").notNull().references(() => users.id),
     outcome: text("outcome", { enum: ["applied", "rejected"] }).notNull(),
     reason: text("reason", { mode: "json" }).$type<{ code: string; message: string; fields?: Record<string, string> }>(),
-    args: text("args", { mode: "json" }).$type<unknown>().notNull(),
+    /** Kept for refused changes only (a retry's answer hands back the server's row they aimed at). */
+    args: text("args", { mode: "json" }).$type<unknown>(),
     /** When the change was made on the device. */
     at: stamp("at").notNull(),
     appliedAt: stamp("applied_at").notNull().default(now),

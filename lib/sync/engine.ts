@@ -11,6 +11,7 @@
  *   it was asked from is still the stored one; the cursor never moves back.
  */
 import {
+  MAX_PUSH_BATCH,
   PROTOCOL_VERSION,
   encodePendingTickets,
   pullResponseSchema,
@@ -33,6 +34,9 @@ import {
 import { applyServerChanges } from "./effects";
 import { uuid } from "./ids";
 import { dropBlobIfUnused } from "./record";
+
+/** Changes per push: the server's limit, so a day's work goes in a handful of requests. */
+export const PUSH_BATCH_SIZE = MAX_PUSH_BATCH;
 
 export interface SyncProgress {
   phase: "idle" | "photos" | "push" | "pull";
@@ -202,7 +206,7 @@ async function registerAgain(db: DeviceDb): Promise<void> {
 
 async function pushAll(opts: SyncOptions, progress: SyncProgress, report: () => void) {
   const { db } = opts;
-  const batchSize = opts.batchSize ?? 200;
+  const batchSize = opts.batchSize ?? PUSH_BATCH_SIZE;
   let rejected = 0;
   let renumbered = false;
   for (let round = 0; round < 10_000; round++) {

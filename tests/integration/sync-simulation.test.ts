@@ -39,7 +39,7 @@ function check(c: SimCase) {
   const db = c.db().$client;
   const problems: string[] = [];
   const applied = db.prepare("SELECT mutation_id, device_id, name, outcome, reason, args FROM applied_mutations").all() as Array<{
-    mutation_id: string; device_id: string; name: string; outcome: string; reason: string | null; args: string;
+    mutation_id: string; device_id: string; name: string; outcome: string; reason: string | null; args: string | null;
   }>;
   const byId = new Map(applied.map((a) => [a.mutation_id, a]));
   const recordedIds = new Set<string>();
@@ -86,7 +86,10 @@ function check(c: SimCase) {
 
     // Exactly-once for the changes that are not idempotent: each applied status change bumped its
     // ticket's version once, each finding change its revision once; and one row per applied creation.
-    const appliedOf = (name: MutationName) => applied.filter((a) => a.outcome === "applied" && a.name === name).map((a) => JSON.parse(a.args) as Record<string, unknown>);
+    // (What each applied change was, from the devices' own records: the server keeps args for refusals only.)
+    const recordedArgs = new Map(c.devices.flatMap((d) => d.recorded.map((m) => [m.mutationId, m.args] as const)));
+    const appliedOf = (name: MutationName) =>
+      applied.filter((a) => a.outcome === "applied" && a.name === name).map((a) => recordedArgs.get(a.mutation_id) ?? {});
     const statusChanges = new Map<string, number>();
     for (const a of appliedOf("ticket.status_changed")) statusChanges.set(String(a.ticketId), (statusChanges.get(String(a.ticketId)) ?? 0) + 1);
     for (const t of db.prepare("SELECT id, version FROM tickets").all() as Array<{ id: string; version: number }>) {

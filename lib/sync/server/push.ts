@@ -32,9 +32,13 @@ const reject = (code: RejectReason["code"], message: string, extra: Partial<Reje
 
 const shortDate = (ms: number | null) => (ms ? new Date(ms).toISOString().slice(0, 10) : "earlier");
 
+/** Ticket headers read during one batch (cleared whenever the batch writes a ticket). */
+type Heads = Map<string, TicketHead | null>;
+
 /** The ticket a fact is recorded against: it must exist and still be open. */
-function openTicket(db: Db, ticketId: string): TicketHead | Outcome {
-  const head = ticketHead(db, ticketId);
+function openTicket(db: Db, ticketId: string, heads: Heads): TicketHead | Outcome {
+  let head = heads.get(ticketId);
+  if (head === undefined) heads.set(ticketId, (head = ticketHead(db, ticketId)));
   if (!head) return reject("not_found", "This ticket is not on the server (it may have been removed). The change was not added.");
   if (!head.open) {
     const label = STATUS_LABELS[head.status as TicketStatus] ?? head.status;
@@ -45,7 +49,13 @@ function openTicket(db: Db, ticketId: string): TicketHead | Outcome {
 const isOutcome = (x: unknown): x is Outcome => typeof x === "object" && x !== null && "ok" in x;
 
 /** Applies one validated mutation. Throws only on a bug (the batch is then rolled back whole). */
-function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<string, unknown>, ctx: { at: string; mutationId: string; deviceId: string }): Outcome {
+function applyOne(
+  db: Db,
+  user: CurrentUser,
+  name: MutationName,
+  args: Record<string, unknown>,
+  ctx: { at: string; mutationId: string; deviceId: string; heads: Heads },
+): Outcome {
   switch (name) {
     case "bench.entry.recorded":
     case "finding.added":
@@ -54,12 +64,9 @@ function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<st
     case "ticket.note_added":
     case "parts.used":
     case "tune.recorded": {
-      const ticket = openTicket(db, String(args.ticketId));
+      const ticket = openTicket(db, String(args.ticketId), ctx.heads);
       if (isOutcome(ticket)) return ticket;
       const entity = MUTATION_ENTITY[name] as "bench_entry";
-      if (readRow(db, entity, String(args.id))) {
-        return reject("id_taken", "Another change already used this record's id. It was not added twice.");
-      }
       if (name === "parts.used" && args.unitPriceCents !== undefined && user.role === "tech") {
         return reject("forbidden", "A bench technician cannot set prices; the counter prices parts.");
       }
@@ -72,14 +79,22 @@ function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<st
         const problem = tuneEntryProblem(factsOfTicket(db, "tune_entry", ticket.id), row as unknown as TuneEntryRow);
         if (problem) return reject("tune_refused", problem);
       }
-      insertRow(db, entity, row);
+      try {
+        insertRow(db, entity, row);
+      } catch (err) {
+        // One statement: when it fails nothing of it (trigger writes included) is kept.
+        if ((err as { code?: string }).code === "SQLITE_CONSTRAINT_PRIMARYKEY") {
+          return reject("id_taken", "Another change already used this record's id. It was not added twice.");
+        }
+        throw err;
+      }
       return { ok: true };
     }
     case "bench.entry.voided": {
       const a = args as MutationArgs<"bench.entry.voided">;
       const row = readRow(db, "bench_entry", a.id);
       if (!row) return reject("not_found", "The entry to void is not on the server.");
-      const ticket = openTicket(db, row.ticketId);
+      const ticket = openTicket(db, row.ticketId, ctx.heads);
       if (isOutcome(ticket)) return ticket;
       if (user.role === "tech" && row.recordedBy !== user.id) {
         return reject("forbidden", "Only the person who recorded an entry (or the counter) can void it.");
@@ -93,7 +108,7 @@ function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<st
       const a = args as MutationArgs<"finding.changed">;
       const row = readRow(db, "finding", a.id);
       if (!row) return reject("not_found", "The finding to change is not on the server.");
-      const ticket = openTicket(db, row.ticketId);
+      const ticket = openTicket(db, row.ticketId, ctx.heads);
       if (isOutcome(ticket)) return ticket;
       updateRow(db, "finding", changedFinding(row, a, user.id));
       return { ok: true };
@@ -111,7 +126,7 @@ function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<st
     }
     case "ticket.status_changed": {
       const a = args as MutationArgs<"ticket.status_changed">;
-      const ticket = openTicket(db, a.ticketId);
+      const ticket = openTicket(db, a.ticketId, ctx.heads);
       if (isOutcome(ticket)) return ticket;
       if (!(BENCH_STATUSES as readonly string[]).includes(a.status)) {
         return reject("forbidden", `"${STATUS_LABELS[a.status]}" is set at the counter, not from the bench.`);
@@ -129,12 +144,16 @@ function applyOne(db: Db, user: CurrentUser, name: MutationName, args: Record<st
             `Your change to "${STATUS_LABELS[a.status]}" was kept for the counter to decide.`,
         );
       }
-      stmt(db, "UPDATE tickets SET status = ?, updated_at = ? WHERE id = ?").run(a.status, Date.now(), ticket.id);
-      stmt(db, "INSERT INTO audit_log (actor_id, action, entity, entity_id, details) VALUES (?, 'ticket.status_changed', 'ticket', ?, ?)").run(
+      ctx.heads.delete(ticket.id);
+      // Two writes: a savepoint keeps them together.
+      db.$client.transaction(() => {
+        stmt(db, "UPDATE tickets SET status = ?, updated_at = ? WHERE id = ?").run(a.status, Date.now(), ticket.id);
+        stmt(db, "INSERT INTO audit_log (actor_id, action, entity, entity_id, details) VALUES (?, 'ticket.status_changed', 'ticket', ?, ?)").run(
         user.id,
         ticket.id,
-        JSON.stringify({ from: ticket.status, to: a.status, via: "bench sync", deviceId: ctx.deviceId }),
-      );
+          JSON.stringify({ from: ticket.status, to: a.status, via: "bench sync", deviceId: ctx.deviceId }),
+        );
+      })();
       return { ok: true };
     }
   }
@@ -176,9 +195,10 @@ export function applyPush(db: Db, user: CurrentUser, req: PushRequest, meta: { u
       "INSERT INTO applied_mutations (mutation_id, device_id, seq, name, user_id, outcome, reason, args, at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)",
     );
     let gapAt: number | null = null;
+    const heads: Heads = new Map();
     for (const m of req.mutations) {
       const prior = findPrior.get(m.mutationId) as
-        | { device_id: string; user_id: string; outcome: string; reason: string | null; name: string; args: string }
+        | { device_id: string; user_id: string; outcome: string; reason: string | null; name: string; args: string | null }
         | undefined;
       if (prior) {
         if (prior.user_id !== user.id) {
@@ -187,7 +207,7 @@ export function applyPush(db: Db, user: CurrentUser, req: PushRequest, meta: { u
           results.push({ mutationId: m.mutationId, seq: m.seq, status: "duplicate" });
         } else {
           const reason = JSON.parse(prior.reason ?? "{}") as RejectReason;
-          results.push({ mutationId: m.mutationId, seq: m.seq, status: "rejected", reason, current: currentFor(db, prior.name, JSON.parse(prior.args)) });
+          results.push({ mutationId: m.mutationId, seq: m.seq, status: "rejected", reason, current: currentFor(db, prior.name, JSON.parse(prior.args ?? "{}")) });
         }
         continue;
       }
@@ -215,15 +235,17 @@ export function applyPush(db: Db, user: CurrentUser, req: PushRequest, meta: { u
       if (isOutcome(checked)) outcome = checked;
       else {
         try {
-          outcome = client.transaction(() => applyOne(db, user, checked.name, checked.args, { at: m.at, mutationId: m.mutationId, deviceId: req.deviceId }))();
+          // Each change writes one statement (or keeps its own savepoint), so a refusal never leaves half a change.
+          outcome = applyOne(db, user, checked.name, checked.args, { at: m.at, mutationId: m.mutationId, deviceId: req.deviceId, heads });
         } catch (err) {
           if (!isSqliteError(err)) throw err;
           outcome = reject("invalid", "The server could not store this change as it is.");
           console.error("[sync] mutation refused by the database", m.name, err.code, err.message);
         }
       }
-      const args = isOutcome(checked) ? m.args : checked.args;
-      record.run(m.mutationId, req.deviceId, m.seq, m.name, user.id, outcome.ok ? "applied" : "rejected", outcome.ok ? null : JSON.stringify(outcome.reason), JSON.stringify(args), Date.parse(m.at));
+      // The args are kept for refusals only: a retry's answer hands back the server's row for them.
+      const args = outcome.ok ? null : JSON.stringify(isOutcome(checked) ? m.args : checked.args);
+      record.run(m.mutationId, req.deviceId, m.seq, m.name, user.id, outcome.ok ? "applied" : "rejected", outcome.ok ? null : JSON.stringify(outcome.reason), args, Date.parse(m.at));
       lastSeq = m.seq;
       if (outcome.ok) results.push({ mutationId: m.mutationId, seq: m.seq, status: "applied" });
       else results.push({ mutationId: m.mutationId, seq: m.seq, status: "rejected", reason: outcome.reason, current: currentFor(db, m.name, m.args) });
