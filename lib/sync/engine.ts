@@ -114,46 +114,63 @@ async function pendingAfter(db: DeviceDb, sending: ReadonlySet<number>): Promise
   return { count, tickets };
 }
 
+/** Photos uploaded at the same time (a few overlap the network's latency; more would only crowd a phone's uplink). */
+export const PHOTO_UPLOADS_AT_ONCE = 3;
+
+type UploadOutcome = "ok" | "refused" | "retry" | "offline" | "unauthorized";
+
+async function uploadOne(opts: SyncOptions, sha256: string): Promise<UploadOutcome> {
+  const { db } = opts;
+  const blob = await db.photoBlobs.get(sha256);
+  if (!blob || blob.uploadedAt || blob.uploadError) return "ok"; // nothing to send (the server decides)
+  let res: Response;
+  try {
+    res = await opts.fetch(`${opts.baseUrl ?? ""}/api/photos/${sha256}`, {
+      method: "PUT",
+      body: blob.blob,
+      headers: { "Content-Type": blob.mime },
+      credentials: "same-origin",
+    });
+  } catch {
+    return "offline";
+  }
+  if (res.ok) {
+    await db.photoBlobs.update(sha256, { uploadedAt: (opts.now?.() ?? new Date()).toISOString() });
+    return "ok";
+  }
+  if (res.status === 400 || res.status === 413 || res.status === 415) {
+    // Refused for good: the push goes ahead, the server refuses the attachment, and the tech sees why.
+    let message = `The photo was refused (${res.status}).`;
+    try {
+      message = ((await res.json()) as { error: { message: string } }).error.message;
+    } catch {
+      // keep the plain message
+    }
+    await db.photoBlobs.update(sha256, { uploadError: message });
+    return "refused";
+  }
+  return res.status === 401 ? "unauthorized" : "retry";
+}
+
 /** Uploads the photo bytes a batch needs. Returns the batch cut before the first photo that could not go yet. */
 async function uploadPhotos(opts: SyncOptions, batch: OutboxEntry[]): Promise<OutboxEntry[]> {
-  const { db } = opts;
-  for (let i = 0; i < batch.length; i++) {
-    const e = batch[i]!;
-    if (e.name !== "photo.attached") continue;
-    const sha256 = String(e.args.sha256);
-    const blob = await db.photoBlobs.get(sha256);
-    if (!blob || blob.uploadedAt || blob.uploadError) continue;
-    let res: Response;
-    try {
-      res = await opts.fetch(`${opts.baseUrl ?? ""}/api/photos/${sha256}`, {
-        method: "PUT",
-        body: blob.blob,
-        headers: { "Content-Type": blob.mime },
-        credentials: "same-origin",
-      });
-    } catch {
-      if (i === 0) throw new Stop({ code: "offline", message: MESSAGES.offline });
-      return batch.slice(0, i);
-    }
-    if (res.ok) {
-      await db.photoBlobs.update(sha256, { uploadedAt: (opts.now?.() ?? new Date()).toISOString() });
-    } else if (res.status === 400 || res.status === 413 || res.status === 415) {
-      // Refused for good: the push goes ahead, the server refuses the attachment, and the tech sees why.
-      let message = `The photo was refused (${res.status}).`;
-      try {
-        message = ((await res.json()) as { error: { message: string } }).error.message;
-      } catch {
-        // keep the plain message
-      }
-      await db.photoBlobs.update(sha256, { uploadError: message });
-    } else if (res.status === 401) {
-      throw new Stop({ code: "session_expired", message: MESSAGES.session_expired });
-    } else {
-      if (i === 0) throw new Stop({ code: "photo_upload", message: `A photo could not be uploaded (${res.status}); sync will try again.` });
-      return batch.slice(0, i);
-    }
+  const wanted = batch.map((e, i) => [e, i] as const).filter(([e]) => e.name === "photo.attached");
+  const outcomes = new Map<number, UploadOutcome>();
+  for (let k = 0; k < wanted.length; k += PHOTO_UPLOADS_AT_ONCE) {
+    const group = wanted.slice(k, k + PHOTO_UPLOADS_AT_ONCE);
+    const done = await Promise.all(group.map(([e]) => uploadOne(opts, String(e.args.sha256))));
+    group.forEach(([, i], j) => outcomes.set(i, done[j]!));
+    if (done.includes("unauthorized")) throw new Stop({ code: "session_expired", message: MESSAGES.session_expired });
+    if (done.includes("retry") || done.includes("offline")) break;
   }
-  return batch;
+  const firstStuck = wanted.find(([, i]) => outcomes.get(i) !== "ok" && outcomes.get(i) !== "refused");
+  if (!firstStuck) return batch;
+  const cut = firstStuck[1];
+  if (cut === 0) {
+    if (outcomes.get(cut) === "offline") throw new Stop({ code: "offline", message: MESSAGES.offline });
+    throw new Stop({ code: "photo_upload", message: "A photo could not be uploaded yet; your changes are kept and sync will try again." });
+  }
+  return batch.slice(0, cut);
 }
 
 /** Stores the server's answers for a batch, in one transaction. Returns how many left the outbox. */

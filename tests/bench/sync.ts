@@ -12,7 +12,8 @@
  *        transaction (plain tables; the rate with the change-log triggers is printed too).
  * Prints a table; the last line is one JSON object.
  *
- * Env: PORT (default 3201), KEEP=1 keeps the temporary folder, SKIP_BUILD=1 serves the existing build.
+ * Env: PORT (default 3201), KEEP=1 keeps the temporary folder, SKIP_BUILD=1 serves the existing build,
+ * PROFILE_DIR=<dir> writes a CPU profile of the server.
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import crypto from "node:crypto";
@@ -25,7 +26,7 @@ import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "../../db/seed";
 import { insertTicket } from "../../lib/tickets/tickets";
 import { PROTOCOL_VERSION, pullResponseSchema, type OutboxMutation } from "../../lib/sync/protocol";
 import { createdRow } from "../../lib/sync/rows";
-import { PUSH_BATCH_SIZE } from "../../lib/sync/engine";
+import { PHOTO_UPLOADS_AT_ONCE, PUSH_BATCH_SIZE } from "../../lib/sync/engine";
 
 process.env.NEXT_TELEMETRY_DISABLED = "1";
 process.env.BCRYPT_COST ??= "8";
@@ -260,7 +261,9 @@ async function main() {
   db.$client.close();
 
   buildIfNeeded();
-  const server = spawn("npx", ["next", "start", "-p", String(PORT), "-H", "127.0.0.1"], {
+  // PROFILE_DIR=<dir> writes a CPU profile of the server (for finding where a request's time goes).
+  const profile = process.env.PROFILE_DIR ? [`--cpu-prof`, `--cpu-prof-dir=${process.env.PROFILE_DIR}`] : [];
+  const server = spawn(process.execPath, [...profile, "node_modules/next/dist/bin/next", "start", "-p", String(PORT), "-H", "127.0.0.1"], {
     env: { ...process.env, DATA_DIR: dir, AUTH_SECRET: crypto.randomBytes(32).toString("hex"), AUTH_TRUST_HOST: "true" },
     stdio: ["ignore", "ignore", "inherit"],
     detached: true,
@@ -292,9 +295,13 @@ async function main() {
     // (a) batched through the real protocol, on the device that just pulled.
     const day = dayOfWork(dayTickets, photos);
     t0 = now();
-    for (const p of photos) {
-      const res = await http(`/api/photos/${p.sha256}`, { method: "PUT", headers: { "content-type": "image/jpeg" }, body: new Uint8Array(p.bytes) });
-      if (res.status !== 201) throw new Error(`photo upload ${res.status}`);
+    for (let i = 0; i < photos.length; i += PHOTO_UPLOADS_AT_ONCE) {
+      await Promise.all(
+        photos.slice(i, i + PHOTO_UPLOADS_AT_ONCE).map(async (p) => {
+          const res = await http(`/api/photos/${p.sha256}`, { method: "PUT", headers: { "content-type": "image/jpeg" }, body: new Uint8Array(p.bytes) });
+          if (res.status !== 201) throw new Error(`photo upload ${res.status}`);
+        }),
+      );
     }
     const photoMs = ms(t0);
     const tPush = now();
@@ -325,7 +332,7 @@ async function main() {
       ["day: records (2,400 entries, 60 findings, 120 tune, 60 photos)", fmt(day.length)],
       [`(a) batched push (batches of ${PUSH_BATCH_SIZE}), records/s`, fmt(batched)],
       ["    push time, ms", fmt(pushMs)],
-      ["    photo uploads (60 × 300 kB), ms", fmt(photoMs)],
+      [`    photo uploads (60 × 300 kB, ${PHOTO_UPLOADS_AT_ONCE} at a time), ms`, fmt(photoMs)],
       [`    pull of the echo (${echo.changes} changes), ms`, fmt(echoMs)],
       ["    whole day's sync (photos + push + pull), ms", fmt(daySyncMs)],
       ["(b) naive, one request per record, records/s", fmt(naive)],
