@@ -12,7 +12,7 @@ import { describeChange, timeAgo } from "@/lib/sync/describe";
 import { attentionEntries, outboxEntries } from "@/lib/sync/read";
 import { dismissAttention, retryAttention, RecordError } from "@/lib/sync/record";
 import { requestSync } from "@/lib/sync/scheduler";
-import { markSignedOut } from "@/lib/sync/session";
+import { markSignedOut, refetchEverything } from "@/lib/sync/session";
 import { SyncBadge } from "./sync-badge";
 import { useDeviceSession } from "./use-device-session";
 import { useLiveSync, useNow, useSyncStatus } from "./use-sync";
@@ -239,6 +239,24 @@ export function SyncPage() {
             </ol>
             {outbox.length > 50 ? <p className="text-muted">…and {outbox.length - 50} more.</p> : null}
           </section>
+        ) : null}
+
+        {session.kind === "ready" ? (
+          <details className="rounded-xl border border-line bg-surface px-3 py-2">
+            <summary className="tap flex cursor-pointer items-center font-semibold">Something looks wrong?</summary>
+            <p className="py-2 text-muted">
+              Fetch this phone&apos;s copy of the shop again from the server. Changes waiting here stay and go out first.
+            </p>
+            <Button
+              variant="secondary"
+              size="bench"
+              className="mb-2 w-full"
+              disabled={live.running || offline}
+              onClick={() => void refetchEverything().then(() => requestSync())}
+            >
+              Fetch everything again
+            </Button>
+          </details>
         ) : null}
 
         {session.kind === "ready" || session.kind === "blocked" ? (

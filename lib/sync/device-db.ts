@@ -95,6 +95,8 @@ export interface SyncState {
   sessionExpired: boolean;
   /** The tech signed out on this device (changes waiting are kept for when they sign in again). */
   signedOut: boolean;
+  /** Someone else is signed in while this device's person still has changes here: nothing is recorded or sent. */
+  otherSignedIn: { id: string; name: string } | null;
 }
 
 export const INITIAL_SYNC_STATE: SyncState = {
@@ -105,6 +107,7 @@ export const INITIAL_SYNC_STATE: SyncState = {
   lastError: null,
   sessionExpired: false,
   signedOut: false,
+  otherSignedIn: null,
 };
 
 /** Dexie's table for each entity a pull hands out. */

@@ -335,6 +335,9 @@ export async function syncOnce(opts: SyncOptions): Promise<SyncResult> {
     const user = await readDeviceUser(db);
     const state = await readSyncState(db);
     if (!user || state.signedOut) throw new Stop({ code: "not_signed_in", message: "Sign in on this phone to sync." });
+    if (state.otherSignedIn) {
+      throw new Stop({ code: "device_owner", message: `${state.otherSignedIn.name} is signed in, but the changes here are ${user.name}'s. Sign in as ${user.name} to send them.` });
+    }
     await updateSyncState(db, { lastAttemptAt: now() });
     if (!(await readIdentity(db))) await writeMeta(db, "device", { deviceId: uuid(), nextSeq: 1 });
     rejected = await pushAll(opts, progress, report);

@@ -153,6 +153,9 @@ export async function record<N extends MutationName>(name: N, input: RecordInput
     const user = await readDeviceUser(db);
     const sync = await readSyncState(db);
     if (!user || sync.signedOut) throw new RecordError("not_signed_in", "Sign in on this phone first.");
+    if (sync.otherSignedIn) {
+      throw new RecordError("not_signed_in", `${user.name}'s changes are still waiting on this phone. Sign in as ${user.name} to send them first.`);
+    }
     const { args, ticketId } = await prepare(db, name, input as Record<string, unknown>, now, user.role);
     const identity = await ensureIdentity(db);
     const entry: OutboxEntry = {

@@ -27,13 +27,16 @@ export async function adoptSignedInUser(user: SignedInUser, options: { db?: Devi
     if (previous && previous.id === user.id) {
       const next: DeviceUser = { ...previous, name: user.name, email: user.email, role: user.role };
       await writeMeta(db, "user", next);
-      await updateSyncState(db, { sessionExpired: false, signedOut: false, ...clearSessionError(await readSyncState(db)) });
+      await updateSyncState(db, { sessionExpired: false, signedOut: false, otherSignedIn: null, ...clearSessionError(await readSyncState(db)) });
       return { status: "same", user: next };
     }
     if (previous) {
       const waiting = await db.outbox.count();
       const needsAttention = await db.attention.count();
-      if (waiting + needsAttention > 0) return { status: "blocked", previous, waiting, needsAttention };
+      if (waiting + needsAttention > 0) {
+        await updateSyncState(db, { otherSignedIn: { id: user.id, name: user.name } });
+        return { status: "blocked", previous, waiting, needsAttention };
+      }
       // A new person: a fresh store and a new device id (the server binds a device to one person).
       for (const t of PULLED_TABLES) await db.table(t).clear();
       await db.photoBlobs.clear();
@@ -59,4 +62,12 @@ export async function currentDeviceUser(db?: DeviceDb): Promise<DeviceUser | nul
 /** After signing out: the person is remembered (their waiting changes stay theirs); recording stops. */
 export async function markSignedOut(db?: DeviceDb): Promise<void> {
   await updateSyncState(db ?? (await getDeviceDb()), { signedOut: true });
+}
+
+/**
+ * Start the copy of the shop over (the next sync fetches the working set from scratch). The outbox,
+ * refused changes and photo bytes stay. For support, e.g. after the server was restored from a backup.
+ */
+export async function refetchEverything(db?: DeviceDb): Promise<void> {
+  await updateSyncState(db ?? (await getDeviceDb()), { cursor: 0, snapshot: null });
 }

@@ -175,12 +175,21 @@ describe("who the phone works for", () => {
     const blocked = await adoptSignedInUser(TECH2, { db });
     expect(blocked).toMatchObject({ status: "blocked", previous: { id: TECH.id }, waiting: 1 });
     expect((await db.meta.get("user"))?.value).toMatchObject({ id: TECH.id });
+    // Meanwhile nothing is recorded under either name.
+    await expect(record("ticket.note_added", { ticketId: T1, text: "by June?" }, { db })).rejects.toMatchObject({ code: "not_signed_in" });
     await db.outbox.clear();
     const before = (await readIdentity(db))!.deviceId;
     expect((await adoptSignedInUser(TECH2, { db })).status).toBe("adopted");
     expect((await readIdentity(db))!.deviceId).not.toBe(before);
     expect(await db.tickets.count()).toBe(0);
     expect((await readSyncState(db)).cursor).toBe(0);
+  });
+
+  it("the first person signing in again lifts the block", async () => {
+    await record("ticket.note_added", { ticketId: T1, text: "x" }, { db });
+    expect((await adoptSignedInUser(TECH2, { db })).status).toBe("blocked");
+    expect((await adoptSignedInUser(TECH, { db })).status).toBe("same");
+    expect((await record("ticket.note_added", { ticketId: T1, text: "again" }, { db })).seq).toBe(2);
   });
 
   it("clears 'session expired' when the same person signs in again", async () => {
