@@ -40,7 +40,7 @@ export function BenchHome() {
           <p className="text-lg">
             {session.kind === "ready" || session.kind === "blocked" ? (
               <>
-                Signed in as <span className="font-bold">{session.kind === "ready" ? session.user.name : session.previous.name}</span>
+                Signed in as <span className="font-bold">{session.kind === "ready" ? session.user.name : session.current.name}</span>
               </>
             ) : (
               "Loading…"

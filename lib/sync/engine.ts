@@ -261,7 +261,11 @@ async function pushAll(opts: SyncOptions, progress: SyncProgress, report: () => 
     if (batch.length < first.length) {
       throw new Stop({ code: "photo_upload", message: "A photo could not be uploaded yet; the rest waits and sync will try again." });
     }
-    if (stored.acknowledged === 0) throw new Stop({ code: "server", message: MESSAGES.server });
+    if (stored.acknowledged === 0) {
+      // Another tab may have stored these answers first; stop only if the same changes are still at the front.
+      const front = await db.outbox.orderBy("seq").first();
+      if (front && front.seq === first[0]!.seq) throw new Stop({ code: "server", message: MESSAGES.server });
+    }
   }
   return rejected;
 }
