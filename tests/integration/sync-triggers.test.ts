@@ -5,6 +5,7 @@ import type { Db } from "@/db/client";
 import { CLOSED_STATUSES } from "@/lib/tickets/status";
 import { tempDb } from "./helpers/db";
 import { T, seedShop } from "./helpers/sync-fixtures";
+import { saveProcedure } from "@/lib/sync/server/procedures";
 
 let ctx: ReturnType<typeof tempDb>;
 let db: Db;
@@ -59,6 +60,16 @@ describe("change capture triggers", () => {
     expect(lines[0]!.version).toBe(before + 2);
     const keys = log().map((l) => `${l.entity}:${l.id}`);
     expect(new Set(keys).size).toBe(keys.length);
+  });
+
+  it("log a saved procedure, and a newer version of it, but not an older one", () => {
+    const before = top();
+    const p = { id: "blower-2s", machineKind: "blower", name: "Two-stroke blower", definition: { steps: [] } };
+    expect(saveProcedure(db, { ...p, version: 2 })).toBe(true);
+    expect(saveProcedure(db, { ...p, version: 1 })).toBe(false);
+    expect(saveProcedure(db, { ...p, version: 3, name: "Backpack blower" })).toBe(true);
+    expect(log().filter((l) => l.version > before)).toEqual([expect.objectContaining({ entity: "procedure", id: "blower-2s", op: "update" })]);
+    expect(db.$client.prepare("SELECT name, version FROM procedures WHERE id = 'blower-2s'").get()).toEqual({ name: "Backpack blower", version: 3 });
   });
 
   it("log a deletion as a tombstone line", () => {

@@ -6,3 +6,4 @@ export { unsyncedBenchWork, type UnsyncedWork } from "./devices";
 export { storePhoto, readPhoto, readBodyLimited, sniffImage } from "./photos";
 export { listConflicts, resolveConflict } from "./conflicts";
 export { benchSheetFor } from "./bench-sheet";
+export { saveProcedure, type ProcedureInput } from "./procedures";
