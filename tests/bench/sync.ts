@@ -318,6 +318,11 @@ async function main() {
     t0 = now();
     for (const m of naiveDay) await pushBatch(naiveDevice, [m]);
     const naiveMs = ms(t0);
+
+    // Fixed cost of one push request (auth, routing, an empty batch), for the notes.
+    const tEmpty = now();
+    for (let i = 0; i < 50; i++) await pushBatch(naiveDevice, []);
+    const emptyMs = ms(tEmpty) / 50;
     server.kill("SIGTERM");
     stop();
 
@@ -336,6 +341,7 @@ async function main() {
       [`    pull of the echo (${echo.changes} changes), ms`, fmt(echoMs)],
       ["    whole day's sync (photos + push + pull), ms", fmt(daySyncMs)],
       ["(b) naive, one request per record, records/s", fmt(naive)],
+      ["    one empty push request (auth, routing), ms", emptyMs.toFixed(1)],
       ["(c) raw SQLite, one transaction, plain tables, rows/s", fmt(rawPlain)],
       ["    raw SQLite with the change-log triggers, rows/s", fmt(rawTriggers)],
       ["batched ÷ naive (target ≥ 20)", (batched / naive).toFixed(1)],
