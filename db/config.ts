@@ -1,10 +1,15 @@
 import fs from "node:fs";
 import path from "node:path";
 
-/** The folder that holds the database, photos and generated secrets. Never committed. */
+const made = new Set<string>();
+
+/** The folder that holds the database, photos and generated secrets (created on first use). Never committed. */
 export function dataDir(): string {
   const dir = path.resolve(process.env.DATA_DIR || "./data");
-  fs.mkdirSync(dir, { recursive: true });
+  if (!made.has(dir)) {
+    fs.mkdirSync(dir, { recursive: true });
+    made.add(dir);
+  }
   return dir;
 }
 

@@ -1,55 +1,25 @@
 "use client";
 
-import { useEffect, useState } from "react";
 import { BenchShell } from "./bench-shell";
 import { Notice } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
+import { SyncBadge } from "@/components/sync/sync-badge";
 import { AskPersistentStorage } from "@/components/pwa/ask-persistent-storage";
-
-interface DeviceUser {
-  id: string;
-  name: string;
-  email: string;
-  role: string;
-}
-
-const KEY = "benchwright.deviceUser";
+import { useDeviceSession } from "@/components/sync/use-device-session";
+import { useSyncStatus } from "@/components/sync/use-sync";
 
 /**
- * Today's work on the bench. It renders from what the device holds, never from a server-side session
- * check, so the page also opens with no network.
+ * Today's work on the bench. It renders from what the device holds (the person who signed in is kept in
+ * the device store), never from a server-side session check, so the page also opens with no network.
  */
 export function BenchHome() {
-  const [user, setUser] = useState<DeviceUser | null>(null);
-  const [state, setState] = useState<"loading" | "ready" | "signed-out">("loading");
-  const [signedInHere, setSignedInHere] = useState(false);
-
-  useEffect(() => {
-    const stored = localStorage.getItem(KEY);
-    if (stored) {
-      setUser(JSON.parse(stored) as DeviceUser);
-      setState("ready");
-    }
-    fetch("/api/me", { cache: "no-store" })
-      .then(async (res) => {
-        if (res.status === 401) {
-          setState(stored ? "ready" : "signed-out");
-          return;
-        }
-        if (!res.ok) return;
-        const body = (await res.json()) as { user: DeviceUser };
-        localStorage.setItem(KEY, JSON.stringify(body.user));
-        setUser(body.user);
-        setSignedInHere(true);
-        setState("ready");
-      })
-      .catch(() => setState(stored ? "ready" : "signed-out"));
-  }, []);
+  const session = useDeviceSession();
+  const status = useSyncStatus();
 
   return (
-    <BenchShell title="Today's work">
-      {signedInHere ? <AskPersistentStorage /> : null}
-      {state === "signed-out" ? (
+    <BenchShell title="Today's work" status={session.kind === "signed-out" ? undefined : <SyncBadge />}>
+      {session.kind === "ready" ? <AskPersistentStorage /> : null}
+      {session.kind === "signed-out" ? (
         <div className="flex flex-col gap-4">
           <Notice tone="info" title="Not signed in on this phone">
             Sign in once with a network; after that the bench opens here even with no signal.
@@ -60,18 +30,41 @@ export function BenchHome() {
         </div>
       ) : (
         <div className="flex flex-col gap-4">
+          {session.kind === "blocked" ? (
+            <Notice tone="bad" title={`${session.previous.name}'s work is still on this phone`}>
+              Their changes have not been sent yet, so this phone keeps working for them. Open{" "}
+              <a className="font-bold underline" href="/bench/sync">
+                Sync
+              </a>{" "}
+              to sign out, then sign in as {session.previous.name} to send them first.
+            </Notice>
+          ) : null}
           <p className="text-lg">
-            {user ? (
+            {session.kind === "ready" || session.kind === "blocked" ? (
               <>
-                Signed in as <span className="font-bold">{user.name}</span>
+                Signed in as <span className="font-bold">{session.kind === "ready" ? session.user.name : session.current.name}</span>
               </>
             ) : (
               "Loading…"
             )}
           </p>
-          <Notice tone="info" title="No tickets on this phone yet">
-            Tickets assigned to you appear here after the first sync.
-          </Notice>
+          {status?.sessionExpired ? (
+            <Notice tone="bad" title="Sign in again to send your changes">
+              They are kept on this phone.{" "}
+              <a className="font-bold underline" href="/sign-in?next=%2Fbench%2Fsync">
+                Sign in again
+              </a>
+            </Notice>
+          ) : null}
+          {status && status.tickets > 0 ? (
+            <p className="text-muted">
+              {status.tickets} open ticket{status.tickets === 1 ? "" : "s"} on this phone.
+            </p>
+          ) : (
+            <Notice tone="info" title="No tickets on this phone yet">
+              Tickets assigned to you appear here after the first sync.
+            </Notice>
+          )}
         </div>
       )}
     </BenchShell>

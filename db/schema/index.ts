@@ -1,2 +1,4 @@
 export * from "./core";
 export * from "./counter";
+export * from "./bench";
+export * from "./sync";

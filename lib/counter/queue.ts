@@ -7,7 +7,7 @@ import { getShopSettings } from "@/lib/shop/settings";
 import { MACHINE_KIND_LABELS, type MachineKind } from "@/lib/tickets/machine";
 import { OPEN_STATUSES, STATUS_LABELS, TICKET_STATUSES, isOpenStatus, type TicketStatus } from "@/lib/tickets/status";
 import { complaintSummary } from "@/lib/tickets/intake";
-import { unsyncedBenchWork, type UnsyncedWork } from "@/lib/tickets/unsynced";
+import { unsyncedBenchWork, type UnsyncedWork } from "@/lib/sync/server";
 import { normalizeTagCode } from "@/lib/trade/tag-code";
 import { phoneDigits } from "./contact";
 import { dateIn, daysBetween, zonedTimeToInstant } from "./dates";

@@ -65,7 +65,7 @@ describe("keepDeviceDbOpen", () => {
     const { db, open } = store();
     cleanups.push(keepDeviceDbOpen(open, page));
     await until(() => db.isOpen());
-    await db.outbox.add({ seq: 1, mutationId: "m-1", deviceId: "d-1", name: "note.add", args: {}, at: "2026-05-04T10:00:00.000Z" });
+    await db.outbox.add({ seq: 1, mutationId: "m-1", deviceId: "d-1", name: "ticket.note_added", args: {}, at: "2026-05-04T10:00:00.000Z", userId: "u-1", entityId: "n-1", ticketId: "t-1" });
 
     dropConnection(db);
     expect(db.isOpen()).toBe(false);
