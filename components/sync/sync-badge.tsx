@@ -55,22 +55,24 @@ export function SyncBadge() {
     detail = timeAgo(status.lastSyncAt, now);
   }
   const fraction = p ? (p.phase === "pull" ? (p.pulled + p.remaining ? p.pulled / (p.pulled + p.remaining) : 0) : p.toPush ? p.pushed / p.toPush : 0) : 0;
-  const label = `Sync: ${title}, ${detail}${attention ? `, ${attention} need${attention === 1 ? "s" : ""} attention` : ""}`;
 
   return (
     <Link
       href="/bench/sync"
-      aria-label={label}
       data-testid="sync-badge"
       data-state={live.running ? "syncing" : offline ? "offline" : waiting ? "waiting" : status?.lastSyncAt ? "synced" : "never"}
       data-last-sync={status?.lastSyncAt ?? ""}
       className={`tap relative flex shrink-0 items-center gap-2 overflow-visible rounded-xl border-2 bg-surface py-1 pl-2.5 ${attention ? "pr-5" : "pr-2.5"} ${tone}`}
     >
       <Icon size={22} aria-hidden strokeWidth={2.2} className={live.running ? "animate-spin" : undefined} />
+      {/* The accessible name is the visible text (WCAG 2.5.3 label in name), with a spoken prefix and separators. */}
+      <span className="sr-only">Sync: </span>
       <span className="flex flex-col text-left leading-tight">
         <span className="text-sm font-bold">{title}</span>
+        <span className="sr-only">, </span>
         <span className="text-xs font-medium text-muted">{detail}</span>
       </span>
+      {attention ? <span className="sr-only">, {attention} need{attention === 1 ? "s" : ""} attention</span> : null}
       {attention ? (
         <span aria-hidden className="absolute -right-2 -top-2 grid min-w-6 place-items-center rounded-full bg-bad px-1.5 text-xs font-bold leading-6 text-white dark:text-black">
           {attention}
