@@ -1,6 +1,7 @@
 import { eq } from "drizzle-orm";
 import type { Db } from "./client";
-import { customers, machines, shopSettings, tickets, users } from "./schema";
+import { benchEntries, customers, findings, laborEntries, machines, shopSettings, ticketNotes, tickets, tuneEntries, users } from "./schema";
+import { CHAIN_SAW } from "../lib/procedures/built-in/chain-saw";
 import { hashPassword } from "../lib/auth/password";
 import type { Role } from "../lib/auth/roles";
 import type { EngineType, MachineKind } from "../lib/tickets/machine";
@@ -64,6 +65,51 @@ const DEMO_TICKETS: Array<{
   { id: T(7), machineId: M(7), customerId: C(6), complaint: "Blades stop while the engine keeps running.", complaintTags: ["chain_or_blade"], flags: [], note: "", accessories: "Blade guard", status: "taken_in", daysAgo: 1, promisedInDays: 5, approvalLimitCents: 9000, techId: null },
   { id: T(8), machineId: M(8), customerId: C(1), complaint: "Pull cord snapped.", complaintTags: ["service"], flags: [], note: "", accessories: "", status: "handed_back", daysAgo: 40, promisedInDays: -36, approvalLimitCents: 6000, techId: TECH2 },
 ];
+
+const B = (n: number) => `00000000-0000-4000-8400-${String(n).padStart(12, "0")}`;
+
+/**
+ * Bench work already synced from the tech's phone for the demo's "in repair" chain saw (ticket T(5)), so the
+ * counter's ticket page has something to show. Kept apart from seedDemo (tests start from empty bench tables).
+ */
+export function seedDemoBenchWork(db: Db, now = Date.now()): void {
+  db.transaction((tx) => seedBenchWork(tx, now));
+}
+
+function seedBenchWork(tx: Parameters<Parameters<Db["transaction"]>[0]>[0], now: number): void {
+  const ticketId = T(5);
+  const at = (minutesAgo: number) => new Date(now - 3 * DAY + (240 - minutesAgo) * 60_000);
+  const answers: Array<[string, unknown]> = [
+    ["chain-direction", { kind: "pass-fail", pass: true }],
+    ["chain-tension", { kind: "choice", selected: ["loose"] }],
+    ["fuel-line", { kind: "choice", selected: ["hard"] }],
+    ["pull-over-feel", { kind: "choice", selected: ["strong"] }],
+    ["primed-start", { kind: "choice", selected: ["ran-briefly"] }],
+    ["leak-where", { kind: "choice", selected: ["cracked-line"] }],
+    ["inlet-screen", { kind: "choice", selected: ["film"] }],
+    ["metering-diaphragm", { kind: "choice", selected: ["stiff"] }],
+  ];
+  answers.forEach(([stepId, value], i) =>
+    tx.insert(benchEntries)
+      .values({ id: B(i + 1), ticketId, procedureId: CHAIN_SAW.id, procedureVersion: CHAIN_SAW.version, stepId, value, at: at(i * 4), recordedBy: TECH })
+      .onConflictDoNothing()
+      .run(),
+  );
+  const part = (description: string, qty = 1) => ({ description, partNumber: null, qty });
+  const rows = [
+    { id: B(20), grade: "cause" as const, title: "Fuel line cracked at the tank outlet", note: "Leaks under the rear handle; sucks air, so it bogs in the cut.", suggestedParts: [part("Fuel line, 3/32 in ID"), part("Fuel filter")], suggestedLaborMinutes: 30, alternatives: null },
+    { id: B(21), grade: "cause" as const, title: "Metering diaphragm stiff, inlet screen filmed", note: "Carburetor needs a kit.", suggestedParts: [part("Carburetor kit (diaphragms, gaskets, screen)")], suggestedLaborMinutes: 45, alternatives: [{ label: "Replace the carburetor assembly", parts: [part("Carburetor assembly")], laborMinutes: 20 }] },
+    { id: B(22), grade: "due_soon" as const, title: "Chain worn, cutters filed short", note: "", suggestedParts: [part("Chain, 3/8 in low profile, 50 drive links")], suggestedLaborMinutes: 10, alternatives: null },
+    { id: B(23), grade: "advisory" as const, title: "Bar rails a little uneven", note: "Dress the rails at the next sharpening.", suggestedParts: [], suggestedLaborMinutes: null, alternatives: null },
+  ];
+  for (const f of rows) tx.insert(findings).values({ ...f, ticketId, createdBy: TECH, at: at(40) }).onConflictDoNothing().run();
+  tx.insert(tuneEntries).values([
+    { id: B(30), ticketId, screw: "low", kind: "baseline", eighths: 8, baselineKind: "seated-then-out", at: at(60), recordedBy: TECH },
+    { id: B(31), ticketId, screw: "high", kind: "baseline", eighths: 8, baselineKind: "seated-then-out", at: at(60), recordedBy: TECH },
+  ]).onConflictDoNothing().run();
+  tx.insert(laborEntries).values({ id: B(40), ticketId, userId: TECH, startedAt: at(0), endedAt: at(-35) }).onConflictDoNothing().run();
+  tx.insert(ticketNotes).values({ id: B(50), ticketId, text: "Waiting on the carburetor kit before the tune.", at: at(70), authorId: TECH }).onConflictDoNothing().run();
+}
 
 /** A small seeded PRNG (mulberry32) so the demo's tag codes are the same on every machine. */
 function seeded(seed: number): () => number {

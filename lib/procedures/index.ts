@@ -13,6 +13,7 @@ export * from "./model";
 export * from "./values";
 export * from "./conditions";
 export * from "./validate";
+export * from "./describe";
 
 /** The procedures that ship with Benchwright, written from trade knowledge in our own words. */
 export const BUILT_IN_PROCEDURES: readonly Procedure[] = [CHAIN_SAW, HANDHELD, WALK_MOWER, GENERATOR];

@@ -2,7 +2,7 @@ import { eq } from "drizzle-orm";
 import { openDatabase } from "../../db/client";
 import { databaseFile } from "../../db/config";
 import { users } from "../../db/schema";
-import { DEMO_PASSWORD, DEMO_USERS, ensureShop, seedDemo } from "../../db/seed";
+import { DEMO_PASSWORD, DEMO_USERS, ensureShop, seedDemo, seedDemoBenchWork } from "../../db/seed";
 import { authSecret } from "../../lib/auth/secret";
 
 /** Migrate, then seed the demo shop unless DEMO=0; makes sure AUTH_SECRET exists. */
@@ -17,6 +17,7 @@ export async function prepareData(): Promise<void> {
     if (!owner) console.log("[benchwright] empty shop: create the first owner with  npm run create-owner");
   } else {
     const { created } = await seedDemo(db);
+    seedDemoBenchWork(db);
     console.log(`[benchwright] demo shop ${created ? "seeded" : "already present"}. Demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const u of DEMO_USERS) console.log(`    ${u.role.padEnd(8)} ${u.email}`);
   }

@@ -1,6 +1,6 @@
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { sql } from "drizzle-orm";
-import { DEMO_USERS, seedDemo, ensureShop } from "@/db/seed";
+import { DEMO_USERS, seedDemo, seedDemoBenchWork, ensureShop } from "@/db/seed";
 import { tickets } from "@/db/schema";
 import { isValidTagCode } from "@/lib/trade/tag-code";
 import { verifyPassword } from "@/lib/auth/password";
@@ -15,7 +15,7 @@ afterEach(() => ctx.cleanup());
 
 const counts = (db: typeof ctx.db) =>
   Object.fromEntries(
-    ["users", "customers", "machines", "tickets", "shop_settings", "audit_log"].map((t) => [
+    ["users", "customers", "machines", "tickets", "shop_settings", "audit_log", "bench_entries", "findings", "tune_entries", "labor_entries", "ticket_notes", "change_log"].map((t) => [
       t,
       (db.get(sql.raw(`select count(*) as n from ${t}`)) as { n: number }).n,
     ]),
@@ -34,7 +34,10 @@ describe("demo seed", () => {
 
   it("is idempotent: seeding twice duplicates nothing", async () => {
     await seedDemo(ctx.db);
+    seedDemoBenchWork(ctx.db);
     const before = counts(ctx.db);
+    expect(before).toMatchObject({ bench_entries: 8, findings: 4, tune_entries: 2, labor_entries: 1, ticket_notes: 1 });
+    seedDemoBenchWork(ctx.db);
     const second = await seedDemo(ctx.db);
     expect(second.created).toBe(false);
     expect(counts(ctx.db)).toEqual(before);

@@ -7,6 +7,7 @@ import { formAction } from "@/lib/http/action";
 import { issueSticker, replaceTag } from "@/lib/counter/tags";
 import { handBack, handBackFormSchema } from "@/lib/counter/ticket-actions";
 import { formatTagCode } from "@/lib/trade/tag-code";
+import { resolveConflict } from "@/lib/sync/server";
 
 const STAFF = ["counter", "owner"] as const;
 
@@ -34,5 +35,15 @@ export const issueStickerAction = formAction(
     const code = issueSticker(getDb(), { machineId, actorId: user.id });
     revalidatePath(back);
     return `Sticker ${formatTagCode(code)} is ready to print.`;
+  },
+);
+
+export const resolveConflictAction = formAction(
+  [...STAFF],
+  z.object({ ticketId: z.string().min(1), conflictId: z.string().min(1), resolution: z.enum(["kept_server", "used_device"]) }),
+  async ({ ticketId, conflictId, resolution }, user) => {
+    resolveConflict(getDb(), { conflictId, userId: user.id, resolution });
+    revalidatePath(`/counter/tickets/${ticketId}`);
+    return resolution === "used_device" ? "The bench's value is now the ticket's." : "The counter's value stays.";
   },
 );
