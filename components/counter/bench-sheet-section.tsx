@@ -5,11 +5,11 @@ import { counterBenchSheet } from "@/lib/counter/bench-sheet";
 import { GRADE_LABELS, GRADE_ORDER, type BenchSheetView } from "@/lib/counter/bench-sheet-view";
 import { STATUS_LABELS, TICKET_STATUSES, type TicketStatus } from "@/lib/tickets/status";
 import { formatHours } from "@/lib/money/labor";
+import { formatDateTime } from "@/lib/counter/dates";
+import { getShopSettings } from "@/lib/shop/settings";
 import { ConflictForm } from "./conflict-form";
 
 const statusLabel = (v: unknown) => (TICKET_STATUSES.includes(v as TicketStatus) ? STATUS_LABELS[v as TicketStatus] : String(v));
-const when = (iso: string) =>
-  new Date(iso).toLocaleString("en-US", { weekday: "short", month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
 
 /** "1.25 h (75 min)" */
 const hours = (minutes: number) => `${formatHours(minutes)} h (${minutes} min)`;
@@ -41,7 +41,9 @@ function Sub({ title, icon, children }: { title: string; icon?: ReactNode; child
   );
 }
 
-function Findings({ view, compact }: { view: BenchSheetView; compact: boolean }) {
+type When = (iso: string) => string;
+
+function Findings({ view, compact, when }: { view: BenchSheetView; compact: boolean; when: When }) {
   if (!view.findings.length) return <p className="text-muted">No findings graded yet.</p>;
   return (
     <ul className="flex flex-col gap-3">
@@ -85,14 +87,17 @@ function Findings({ view, compact }: { view: BenchSheetView; compact: boolean })
  * the tune log, labor time, photos, parts and notes. Compact (inside a history list): findings and parts only.
  */
 export function BenchSheetSection({ ticketId, compact = false }: { ticketId: string; compact?: boolean }) {
-  const { view, conflicts } = counterBenchSheet(getDb(), ticketId);
+  const db = getDb();
+  const { view, conflicts } = counterBenchSheet(db, ticketId);
+  const tz = getShopSettings(db).timezone;
+  const when: When = (iso) => formatDateTime(tz, new Date(iso));
 
   if (compact) {
     // Inside a history list: a plain block, not a landmark (there is one per ticket).
     return (
       <div data-bench-sheet={ticketId} className="flex flex-col gap-2">
         <p className="text-base font-semibold">Findings and parts</p>
-        {view.isEmpty ? <p className="text-muted">No bench work synced.</p> : <Findings view={view} compact />}
+        {view.isEmpty ? <p className="text-muted">No bench work synced.</p> : <Findings view={view} compact when={when} />}
         {view.parts.length ? (
           <p className="text-ink-2">Parts: {view.parts.map((p) => `${p.description} × ${p.qty}`).join(", ")}</p>
         ) : null}
@@ -132,7 +137,7 @@ export function BenchSheetSection({ ticketId, compact = false }: { ticketId: str
       {view.isEmpty ? null : (
         <>
           <Sub title="Findings">
-            <Findings view={view} compact={false} />
+            <Findings view={view} compact={false} when={when} />
           </Sub>
 
           {view.entries.length ? (

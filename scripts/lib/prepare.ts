@@ -4,6 +4,7 @@ import { databaseFile } from "../../db/config";
 import { users } from "../../db/schema";
 import { DEMO_PASSWORD, DEMO_USERS, ensureShop, seedDemo, seedDemoBenchWork } from "../../db/seed";
 import { authSecret } from "../../lib/auth/secret";
+import { ensureBuiltInProcedures } from "../../db/procedures";
 
 /** Migrate, then seed the demo shop unless DEMO=0; makes sure AUTH_SECRET exists. */
 export async function prepareData(): Promise<void> {
@@ -11,6 +12,8 @@ export async function prepareData(): Promise<void> {
   const file = databaseFile();
   const db = openDatabase(file); // applies migrations
   console.log(`[benchwright] database ready: ${file}`);
+  const procedures = ensureBuiltInProcedures(db);
+  if (procedures) console.log(`[benchwright] built-in bench sheets saved: ${procedures}`);
   if (process.env.DEMO === "0") {
     ensureShop(db);
     const owner = db.select({ id: users.id }).from(users).where(eq(users.role, "owner")).get();
