@@ -20,12 +20,13 @@ import { buttonClass } from "@/components/ui/button";
 import { apiJson } from "./api";
 import { CautionNote } from "./caution-note";
 import { Chips, Select, TextArea } from "./fields";
+import { IntakePhotos } from "./intake-photos";
 import { takeInAction } from "@/app/counter/intake/actions";
 
 const FIELD_ORDER: Array<FieldPath<IntakeValues>> = [
   "customerId", "firstName", "lastName", "phone", "email", "contactPreference", "emailConsent",
   "machineId", "kind", "engineType", "make", "model", "serial",
-  "complaintPicks", "complaint", "conditionFlags", "conditionNote", "accessories", "promisedDate", "approvalLimit", "assignedTechId",
+  "complaintPicks", "complaint", "conditionFlags", "conditionNote", "accessories", "photos", "promisedDate", "approvalLimit", "assignedTechId",
 ];
 
 function useDebounced<T>(value: T, ms = 250): T {
@@ -97,6 +98,7 @@ export function IntakeForm({
   };
   const flags = useWatch({ control, name: "conditionFlags" });
   const serialIsDifferent = useWatch({ control, name: "serialIsDifferent" });
+  const intakePhotos = useWatch({ control, name: "photos" });
 
   function customerFields(c: CustomerHit): Partial<IntakeValues> {
     return {
@@ -251,6 +253,7 @@ export function IntakeForm({
         {fuelCaution && flags?.includes("fuel_in_tank") ? <CautionNote caution={fuelCaution} /> : null}
         <TextArea id="f-conditionNote" label="Condition note" rows={2} error={err("conditionNote")} {...register("conditionNote")} />
         <Field label="Left with the machine" hint="Bar cover, battery, charger, grass bag…" autoComplete="off" error={err("accessories")} {...register("accessories")} />
+        <IntakePhotos value={intakePhotos ?? []} onChange={(next) => setValue("photos", next, { shouldDirty: true })} error={err("photos")} />
       </Section>
 
       </div>

@@ -46,6 +46,9 @@ export interface BenchSheetView {
   isEmpty: boolean;
 }
 
+/** The step id that marks a ticket's intake photos (taken at the counter). */
+export const INTAKE_PHOTO_STEP = "intake";
+
 const cap = (s: string) => (s ? s[0]!.toUpperCase() + s.slice(1) : s);
 const byTime = <T extends { at: string }>(a: T, b: T) => a.at.localeCompare(b.at);
 
@@ -116,7 +119,9 @@ export function buildBenchSheetView(
     ? SCREWS.filter((s) => touched.has(s)).map((s) => ({ screw: s, label: cap(SCREW_LABELS[s]), position: describePosition(tuneState[s]) }))
     : [];
 
-  const photos = [...rows.photo].sort(byTime);
+  // Intake photos are the counter's, shown with the intake; the bench sheet shows the bench's own.
+  const allPhotos = [...rows.photo].sort(byTime);
+  const photos = allPhotos.filter((p) => p.stepId !== INTAKE_PHOTO_STEP);
   const labor = laborMinutes(rows.labor_entry, now);
   const findings = rows.finding
     .filter((f) => !f.withdrawn)
@@ -124,7 +129,7 @@ export function buildBenchSheetView(
     .map((f) => ({
       ...f,
       byName: who(f.createdBy),
-      photos: photos.filter((p) => p.findingId === f.id || f.photoIds.includes(p.id) || f.photoIds.includes(p.sha256)),
+      photos: allPhotos.filter((p) => p.findingId === f.id || f.photoIds.includes(p.id) || f.photoIds.includes(p.sha256)),
     }));
   return {
     procedureTitle: procedure?.title ?? null,

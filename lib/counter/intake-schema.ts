@@ -9,6 +9,23 @@ import { COMPLAINT_PICKS, CONDITION_FLAGS, CONTACT_PREFERENCES } from "../ticket
 import { checkPhone } from "./contact";
 import { addDays, isCalendarDate } from "./dates";
 
+/** Photos taken at intake: uploaded to the photo store first (PUT /api/photos/<sha256>), then named here. */
+export const INTAKE_PHOTOS_MAX = 6;
+export interface IntakePhoto {
+  sha256: string;
+  mime: "image/jpeg" | "image/png" | "image/webp";
+  bytes: number;
+  width: number | null;
+  height: number | null;
+}
+const intakePhotoSchema = z.object({
+  sha256: z.string().regex(/^[0-9a-f]{64}$/, "A photo's reference is not valid: take it again."),
+  mime: z.enum(["image/jpeg", "image/png", "image/webp"]),
+  bytes: z.number().int().positive().max(8 * 1024 * 1024),
+  width: z.number().int().positive().nullable(),
+  height: z.number().int().positive().nullable(),
+});
+
 /** The largest "call before going over" amount we take: $100,000. */
 export const APPROVAL_LIMIT_MAX_CENTS = 10_000_000;
 /** How far ahead a promised date may be. */
@@ -40,6 +57,7 @@ export interface IntakeValues {
   promisedDate: string;
   approvalLimit: string;
   assignedTechId: string;
+  photos: IntakePhoto[];
 }
 
 export const EMPTY_INTAKE: IntakeValues = {
@@ -65,6 +83,7 @@ export const EMPTY_INTAKE: IntakeValues = {
   promisedDate: "",
   approvalLimit: "",
   assignedTechId: "",
+  photos: [],
 };
 
 /** "call before going over $N": "" → no limit (null); otherwise whole cents, never negative. */
@@ -106,6 +125,7 @@ export function intakeSchema(today: string) {
       promisedDate: z.string().trim(),
       approvalLimit: z.string().trim(),
       assignedTechId: uuidOrEmpty("Choose a technician from the list."),
+      photos: z.array(intakePhotoSchema).max(INTAKE_PHOTOS_MAX, `Keep it to ${INTAKE_PHOTOS_MAX} photos.`).default([]),
     })
     .superRefine((v, ctx) => {
       const issue = (path: keyof IntakeValues, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
@@ -170,6 +190,7 @@ export function intakeSchema(today: string) {
       promisedDate: v.promisedDate || null,
       approvalLimitCents: (parseApprovalLimit(v.approvalLimit) as { ok: true; value: number | null }).value,
       assignedTechId: v.assignedTechId || null,
+      photos: v.photos,
     }));
 }
 

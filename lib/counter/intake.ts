@@ -2,7 +2,7 @@ import "server-only";
 import crypto from "node:crypto";
 import { and, desc, eq, inArray, ne, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { customers, machines, tickets } from "@/db/schema";
+import { customers, machines, photoFiles, photos, tickets } from "@/db/schema";
 import { audit } from "@/lib/audit/log";
 import { getShopSettings } from "@/lib/shop/settings";
 import { MACHINE_KIND_LABELS } from "@/lib/tickets/machine";
@@ -14,6 +14,7 @@ import { DAY_MS, dateIn } from "./dates";
 import { intakeSchema, type IntakeInput } from "./intake-schema";
 import { isActiveTech } from "./people";
 import { serialKey } from "./search";
+import { INTAKE_PHOTO_STEP } from "./bench-sheet-view";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
@@ -195,7 +196,23 @@ function intakeIn(tx: Tx, input: IntakeInput, actorId: string | null, now: numbe
     comebackOfTicketId,
     createdAt: at,
   });
+  attachIntakePhotos(tx, created.id, input.photos, actorId, at);
   return { ok: true, ticketId: created.id, number: created.number, tagCode: created.tagCode, comebackOfTicketId };
+}
+
+
+function attachIntakePhotos(tx: Tx, ticketId: string, list: IntakeInput["photos"], actorId: string | null, at: Date): void {
+  const seen = new Set<string>();
+  for (const p of list) {
+    if (seen.has(p.sha256)) continue;
+    seen.add(p.sha256);
+    const stored = tx.select({ sha256: photoFiles.sha256 }).from(photoFiles).where(eq(photoFiles.sha256, p.sha256)).get();
+    if (!stored) fail({ photos: "A photo did not finish uploading. Remove it and take it again." });
+    if (!actorId) fail({ photos: "Sign in again to attach photos." });
+    tx.insert(photos)
+      .values({ id: crypto.randomUUID(), ticketId, sha256: p.sha256, mime: p.mime, bytes: p.bytes, width: p.width, height: p.height, stepId: INTAKE_PHOTO_STEP, caption: "At intake", at, takenBy: actorId })
+      .run();
+  }
 }
 
 /**

@@ -1,3 +1,4 @@
+import { PNG } from "pngjs";
 import { expect, test } from "@playwright/test";
 import { decodeCode128, renderPdfPage } from "../fixtures/barcode";
 import { addDays, dateIn } from "../../lib/counter/dates";
@@ -10,6 +11,18 @@ test.use({ viewport: { width: 1024, height: 768 } });
 
 /** The demo shop keeps Chicago time. */
 const inThreeDays = () => addDays(dateIn("America/Chicago", Date.now()), 3);
+
+/** A plain PNG of the given size (pngjs), standing in for a camera picture. */
+function testPng(width: number, height: number): Buffer {
+  const png = new PNG({ width, height });
+  for (let i = 0; i < png.data.length; i += 4) {
+    png.data[i] = (i / 4) % width % 256;
+    png.data[i + 1] = 120;
+    png.data[i + 2] = 60;
+    png.data[i + 3] = 255;
+  }
+  return PNG.sync.write(png);
+}
 
 test("the counter takes a machine in, prints a tag that scans back to its code, and moves it on the board", async ({ page }) => {
   await signInAs(page, DEMO.counter);
@@ -43,6 +56,10 @@ test("the counter takes a machine in, prints a tag that scans back to its code, 
   await expect(page.getByRole("group", { name: "Quick picks" }).getByLabel("Won't start")).toBeChecked();
   await expect(page).toHaveURL(/\/counter\/intake$/);
 
+  // An intake photo: downscaled, hashed and uploaded at once; the failed save above did not lose it either.
+  await page.getByTestId("intake-photo-input").setInputFiles({ name: "guard.png", mimeType: "image/png", buffer: testPng(2400, 1800) });
+  await expect(page.getByRole("list", { name: "Intake photos" }).getByRole("img")).toHaveCount(1);
+
   await intake.field("Phone").fill("555-0131");
   await intake.submit();
   await expect(page).toHaveURL(/\/counter\/tickets\/[0-9a-f-]{36}\?taken=1$/);
@@ -51,6 +68,10 @@ test("the counter takes a machine in, prints a tag that scans back to its code, 
   const code = normalizeTagCode(printed);
   expect(isValidTagCode(code)).toBe(true);
   await expect(page.getByRole("status").filter({ hasText: "Print the tag and fix it to the machine" })).toBeVisible();
+  const intakePhoto = page.getByRole("list", { name: "Photos taken at intake" }).getByRole("img");
+  await expect(intakePhoto).toHaveCount(1);
+  // Stored downscaled to the 1600 px long edge (lib/bench/photo), and served back to the counter.
+  await expect.poll(() => intakePhoto.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBe(1600);
 
   // The label PDF's barcode, rendered by poppler and read by zxing, is the ticket's code.
   const href = await page.getByRole("link", { name: "Print tag: 2 × 4 in label" }).getAttribute("href");

@@ -6,7 +6,7 @@ vi.mock("@/lib/auth/auth", () => ({ auth: vi.fn(async () => session.current) }))
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn() }));
 
 import { closeDb } from "@/db/client";
-import { auditLog, customers, machines, tickets } from "@/db/schema";
+import { auditLog, customers, machines, photoFiles, photos, tickets } from "@/db/schema";
 import { createIntake, findComebackOf, takeIn } from "@/lib/counter/intake";
 import { EMPTY_INTAKE, type IntakeValues } from "@/lib/counter/intake-schema";
 import { DAY_MS } from "@/lib/counter/dates";
@@ -188,7 +188,7 @@ describe("comebacks", () => {
       {
         customer: { id: h.cust, firstName: "A", lastName: "B", phone: "555-0100", email: "", contactPreference: "phone", emailConsent: false },
         machine: { id: null, kind: "chain_saw", engineType: "two_stroke", make: "Tarnwick", model: "", serial: "QT25-44810", serialIsDifferent: true },
-        complaintPicks: ["service"], complaint: "", condition: { flags: [], note: "" }, accessories: "", promisedDate: null, approvalLimitCents: null, assignedTechId: null,
+        complaintPicks: ["service"], complaint: "", condition: { flags: [], note: "" }, accessories: "", promisedDate: null, approvalLimitCents: null, assignedTechId: null, photos: [],
       },
       null,
       NOW,
@@ -233,5 +233,36 @@ describe("the intake server action and search routes", () => {
     expect(bad.status).toBe(400);
     session.current = sessionFor(PEOPLE.tech);
     expect((await machinesRoute(new Request("http://test/api/counter/machines?q=77123"), undefined)).status).toBe(403);
+  });
+});
+
+describe("intake photos", () => {
+  const sha = (n: number) => String(n).repeat(64).slice(0, 64);
+  const photo = (n: number) => ({ sha256: sha(n), mime: "image/jpeg" as const, bytes: 1234, width: 1600, height: 1200 });
+  const stored = (n: number) =>
+    ctx.db.insert(photoFiles).values({ sha256: sha(n), mime: "image/jpeg", bytes: 1234, fileName: `${sha(n)}.jpg`, uploadedBy: PEOPLE.counter.id }).run();
+
+  it("attach uploaded photos to the new ticket, marked as taken at intake", () => {
+    stored(1);
+    stored(2);
+    const r = takeIn(ctx.db, values({ photos: [photo(1), photo(2), photo(1)] }), PEOPLE.counter.id, NOW);
+    if (!r.ok) throw new Error(JSON.stringify(r));
+    const rows = ctx.db.select().from(photos).where(eq(photos.ticketId, r.ticketId)).all();
+    expect(rows.map((p) => [p.sha256, p.stepId, p.takenBy])).toEqual([
+      [sha(1), "intake", PEOPLE.counter.id],
+      [sha(2), "intake", PEOPLE.counter.id],
+    ]);
+  });
+
+  it("refuse a photo the store never received, name the field and save nothing", () => {
+    const before = rows(tickets);
+    const r = takeIn(ctx.db, values({ photos: [photo(3)] }), PEOPLE.counter.id, NOW);
+    expect(r).toMatchObject({ ok: false, fields: { photos: "A photo did not finish uploading. Remove it and take it again." } });
+    expect(rows(tickets)).toBe(before);
+  });
+
+  it("refuse more than six", () => {
+    const r = takeIn(ctx.db, values({ photos: [1, 2, 3, 4, 5, 6, 7].map(photo) }), PEOPLE.counter.id, NOW);
+    expect(r).toMatchObject({ ok: false, fields: { photos: "Keep it to 6 photos." } });
   });
 });

@@ -19,6 +19,7 @@ import { Notice } from "@/components/ui/notice";
 import { StatusBadge } from "@/components/counter/status-badge";
 import { PrintPanel } from "@/components/counter/print-panel";
 import { BenchSheetSection } from "@/components/counter/bench-sheet-section";
+import { IntakePhotoStrip } from "@/components/counter/intake-photo-strip";
 import { GiveStickerForm, HandBackForm, ReplaceTagForm, TicketControls } from "@/components/counter/ticket-forms";
 
 export const metadata: Metadata = { title: "Ticket" };
@@ -181,7 +182,7 @@ export default async function TicketPage({
                 ["Technician", d.techName ?? "Not assigned"],
               ]}
             />
-            <p className="mt-4 text-sm text-muted">Intake photos will appear here once photo storage is in place.</p>
+            <IntakePhotoStrip ticketId={t.id} />
           </Card>
 
           <BenchSheetSection ticketId={t.id} />
