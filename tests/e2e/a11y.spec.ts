@@ -50,7 +50,14 @@ for (const { name, as, path, ready } of PAGES) {
 test("no serious or critical accessibility violations: the update warning dialog", async ({ page }) => {
   // The dialog as the app shows it, opened on the bench (its content is the same whatever the reason).
   await page.goto("/offline");
-  await page.evaluate(() => (document.querySelector("dialog") as HTMLDialogElement).showModal());
-  await expect(page.getByRole("dialog", { name: "Update before syncing?" })).toBeVisible();
+  // Until the page has hydrated, React's own effect closes a dialog opened from outside: open it until it stays.
+  const dialog = page.getByRole("dialog", { name: "Update before syncing?" });
+  await expect(async () => {
+    await page.evaluate(() => {
+      const d = document.querySelector("dialog") as HTMLDialogElement;
+      if (!d.open) d.showModal();
+    });
+    await expect(dialog).toBeVisible({ timeout: 1000 });
+  }).toPass({ timeout: 15_000 });
   expect(await seriousViolations(page)).toEqual([]);
 });
