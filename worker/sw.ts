@@ -5,9 +5,10 @@
  * - Precache (one version, installed all at once): webpack's scripts, styles and fonts, every file in public/
  *   (icons), the manifest, and each bench screen's HTML and RSC payload (see lib/pwa/precache.mjs).
  * - Bench screens are answered from the precache, online or not, so the phone always runs one consistent version.
- * - API answers are never cached here: the device store (IndexedDB) holds the tech's data.
+ * - API answers are never cached here: the device store (IndexedDB) holds the tech's data. API calls and other
+ *   screens' router data do not even pass through the worker where the browser has static routes.
  * - Counter and owner pages go to the network; with no network the offline page answers instead.
- * - A new version waits: it takes over only when the app posts SKIP_WAITING (components/pwa/update-store.ts).
+ * - A new version waits: it takes over only when the app posts SKIP_WAITING (components/pwa/pwa-store.ts).
  */
 import {
   CacheFirst,
@@ -20,7 +21,7 @@ import {
   type RouteMatchCallback,
   type SerwistGlobalConfig,
 } from "serwist";
-import { OFFLINE_ROUTE, RSC_MARK } from "../lib/pwa/shell-routes.mjs";
+import { OFFLINE_ROUTE, RSC_MARK, SHELL_ROUTES } from "../lib/pwa/shell-routes.mjs";
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {
@@ -67,6 +68,21 @@ const serwist = new Serwist({
       },
     ],
   },
+  // Requests this worker would only pass on to the network skip it altogether (Static Routing API, set at install;
+  // browsers without it use routes 1 and 5 below, which answer the same way). That saves starting the worker for
+  // every API call, and it lets an outgoing worker go idle while an update takes over: Chromium swaps the new worker
+  // in only once the old one has stopped, which it does when idle, and the queue board's refresh every 5 s (or any
+  // router prefetch) would otherwise keep it running (see activateWaiting in components/pwa/pwa-store.ts).
+  // Rules are tried in order; the first that matches decides.
+  requestRules: [
+    // API answers: never kept, so never through the worker.
+    { condition: { urlPattern: { pathname: "/api/*" } }, source: "network" },
+    // Bench screens (HTML and router data) come from the precache: the worker answers them.
+    { condition: { or: SHELL_ROUTES.map((pathname) => ({ urlPattern: { pathname } })) }, source: "fetch-event" },
+    // Router data (`_rsc`) of every other screen: the network, as route 5 would do. (A part left out of a pattern is
+    // taken from the worker's own URL, so the path must be given.)
+    { condition: { urlPattern: { pathname: "*", search: "*_rsc=*" } }, source: "network" },
+  ],
   // A new version waits for the app's SKIP_WAITING message (Serwist listens for it when skipWaiting is false).
   skipWaiting: false,
   clientsClaim: true,

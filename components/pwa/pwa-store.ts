@@ -159,13 +159,53 @@ function watchWaiting(reg: ServiceWorkerRegistration) {
   void refreshHolds();
 }
 
+/** The waiting worker last told to take over. */
+let skipSentTo: ServiceWorker | null = null;
+let nudgeTimer: ReturnType<typeof setInterval> | undefined;
+let nudgeFrame: HTMLIFrameElement | null = null;
+/** How often an applying update asks the browser again to swap the new worker in, until it has. */
+const ACTIVATION_NUDGE_MS = 1000;
+/** A small file in every version's precache (public/), loaded by nudgeActivation. */
+const NUDGE_URL = "/icons/favicon-16.png";
+
 function activateWaiting() {
   const waiting = registration?.waiting;
   if (!waiting || applyingHere) return;
   applyingHere = true;
   clearInterval(pollTimer);
   set({ update: "applying" });
+  skipSentTo = waiting;
   waiting.postMessage({ type: "SKIP_WAITING" });
+  nudgeTimer = setInterval(nudgeActivation, ACTIVATION_NUDGE_MS);
+}
+
+/**
+ * SKIP_WAITING alone can leave the update waiting. Chromium swaps the new worker in once the old one has stopped,
+ * and asks the old one to stop as soon as it is idle; but a request that reaches the old worker in the few
+ * milliseconds it takes to stop (the browser re-reading the manifest and icon after a screen change, its
+ * speculative warm-up for links coming into view) starts it again, and that copy is no longer asked to stop: it
+ * runs until it has been idle for 30 s (5 minutes while DevTools is attached). Posting SKIP_WAITING again changes
+ * nothing (only a worker's first call counts); loading a page in the worker's scope makes Chromium ask the old
+ * worker to stop again. So until the new worker takes over (the page then reloads), a hidden frame loads a
+ * precached icon: answered by the worker from the phone, with nothing else to load after it. (A page that the
+ * worker leaves to the network would not do: Chromium starts the worker for it.) A newer worker that replaced the
+ * waiting one is told to take over too.
+ */
+function nudgeActivation() {
+  const waiting = registration?.waiting;
+  if (!waiting) return;
+  if (waiting !== skipSentTo) {
+    skipSentTo = waiting;
+    waiting.postMessage({ type: "SKIP_WAITING" });
+  }
+  if (!nudgeFrame) {
+    nudgeFrame = document.createElement("iframe");
+    nudgeFrame.hidden = true;
+    nudgeFrame.tabIndex = -1;
+    nudgeFrame.title = "Update check";
+    document.body.append(nudgeFrame);
+  }
+  nudgeFrame.src = NUDGE_URL;
 }
 
 /**
@@ -222,6 +262,7 @@ async function register() {
 
   sw.addEventListener("controllerchange", () => {
     if (applyingHere) {
+      clearInterval(nudgeTimer);
       window.location.reload();
       return;
     }

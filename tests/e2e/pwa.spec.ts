@@ -83,6 +83,22 @@ test.describe("service worker and manifest", () => {
     expect(favicon.status()).toBe(200);
     expect((await favicon.body()).readUInt16LE(2)).toBe(1); // ICO type 1 = icon
   });
+
+  test("API calls and the counter screens' router data skip the worker; bench screens still come from it", async ({ page }) => {
+    await signInAs(page, DEMO.owner);
+    await waitForServiceWorker(page);
+    const fetched = async (url: string, headers: Record<string, string> = {}) => {
+      const response = page.waitForResponse((r) => r.url().endsWith(url) && r.request().method() === "GET");
+      await page.evaluate(([u, h]) => fetch(u, { headers: h }).then(() => undefined), [url, headers] as const);
+      return (await response).fromServiceWorker();
+    };
+    // Chromium's static routes (W3C Service Workers, "static routing" [read]): these never reach the fetch handler.
+    expect(await fetched("/api/me")).toBe(false);
+    expect(await fetched("/counter?_rsc=e2e", { RSC: "1" })).toBe(false);
+    // Controls: the precache still answers the manifest and a bench screen's router data.
+    expect(await fetched("/manifest.webmanifest")).toBe(true);
+    expect(await fetched("/bench?_rsc=e2e", { RSC: "1" })).toBe(true);
+  });
 });
 
 test.describe("offline", () => {
