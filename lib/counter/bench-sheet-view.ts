@@ -5,6 +5,7 @@
 import type { BenchEntryRow, FindingRow, LaborEntryRow, PartUsedRow, PhotoRow, TicketNoteRow, TuneEntryRow } from "../sync/protocol";
 import type { Procedure } from "../procedures/model";
 import { describeStepValue, stepById } from "../procedures/describe";
+import { laborTotal } from "../bench/sheet";
 import { applyTuneLog, describePosition, SCREW_LABELS, SCREWS, type Baseline, type Screw, type TuneEntry } from "../trade/tune";
 
 export interface SheetRows {
@@ -52,17 +53,10 @@ export const INTAKE_PHOTO_STEP = "intake";
 const cap = (s: string) => (s ? s[0]!.toUpperCase() + s.slice(1) : s);
 const byTime = <T extends { at: string }>(a: T, b: T) => a.at.localeCompare(b.at);
 
-/** Whole minutes worked: each closed interval rounded down to the minute, summed; an open one counts up to `now`. */
+/** Whole minutes worked: each interval summed; an open one counts up to `now` (lib/bench/sheet). */
 export function laborMinutes(rows: LaborEntryRow[], now: Date): { minutes: number; running: boolean } {
-  let ms = 0;
-  let running = false;
-  for (const r of rows) {
-    const start = Date.parse(r.startedAt);
-    const end = r.endedAt ? Date.parse(r.endedAt) : now.getTime();
-    if (!r.endedAt) running = true;
-    if (Number.isFinite(start) && Number.isFinite(end) && end > start) ms += end - start;
-  }
-  return { minutes: Math.floor(ms / 60_000), running };
+  const t = laborTotal(rows, null, now);
+  return { minutes: t.minutes, running: t.running !== null };
 }
 
 export function buildBenchSheetView(

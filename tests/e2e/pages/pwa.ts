@@ -157,3 +157,39 @@ export async function checkForNewWorker(page: Page) {
 export async function expectUpdateBanner(page: Page, text: RegExp | string) {
   await expect(page.getByTestId("update-banner")).toContainText(text);
 }
+
+/** The tickets on the phone (id, number, tag code), once its first sync has brought at least one. */
+export async function deviceTickets(page: Page): Promise<Array<{ id: string; number: number; tagCode: string; assignedTechId: string | null }>> {
+  await expect
+    .poll(
+      () =>
+        page.evaluate(
+          () =>
+            new Promise<number>((resolve) => {
+              const req = indexedDB.open("benchwright-device");
+              req.onsuccess = () => {
+                const db = req.result;
+                if (!db.objectStoreNames.contains("tickets")) return (db.close(), resolve(0));
+                const c = db.transaction("tickets").objectStore("tickets").count();
+                c.onsuccess = () => (db.close(), resolve(c.result));
+              };
+              req.onerror = () => resolve(0);
+            }),
+        ),
+      { timeout: 20_000 },
+    )
+    .toBeGreaterThan(0);
+  return page.evaluate(
+    () =>
+      new Promise((resolve, reject) => {
+        const req = indexedDB.open("benchwright-device");
+        req.onsuccess = () => {
+          const db = req.result;
+          const all = db.transaction("tickets").objectStore("tickets").getAll();
+          all.onsuccess = () => (db.close(), resolve(all.result.map((t: { id: string; number: number; tagCode: string; assignedTechId: string | null }) => ({ id: t.id, number: t.number, tagCode: t.tagCode, assignedTechId: t.assignedTechId }))));
+          all.onerror = () => reject(all.error);
+        };
+        req.onerror = () => reject(req.error);
+      }),
+  );
+}
