@@ -7,9 +7,11 @@ import { SyncBadge } from "@/components/sync/sync-badge";
 import { AskPersistentStorage } from "@/components/pwa/ask-persistent-storage";
 import { useDeviceSession } from "@/components/sync/use-device-session";
 import { useSyncStatus } from "@/components/sync/use-sync";
+import { TodayList } from "./today-list";
 
 /**
- * Today's work on the bench. It renders from what the device holds (the person who signed in is kept in
+ * Today's work on the bench: the tech's tickets (components/bench/today-list), searchable, each one tap from its
+ * ticket screen. It renders from what the device holds (the person who signed in is kept in
  * the device store), never from a server-side session check, so the page also opens with no network.
  */
 export function BenchHome() {
@@ -56,15 +58,7 @@ export function BenchHome() {
               </a>
             </Notice>
           ) : null}
-          {status && status.tickets > 0 ? (
-            <p className="text-muted">
-              {status.tickets} open ticket{status.tickets === 1 ? "" : "s"} on this phone.
-            </p>
-          ) : (
-            <Notice tone="info" title="No tickets on this phone yet">
-              Tickets assigned to you appear here after the first sync.
-            </Notice>
-          )}
+          <TodayList synced={Boolean(status?.lastSyncAt)} />
         </div>
       )}
     </BenchShell>

@@ -4,14 +4,14 @@ import type { Db } from "@/db/client";
 import { machines, ticketTags, tickets } from "@/db/schema";
 import { audit } from "@/lib/audit/log";
 import { AppError } from "@/lib/http/errors";
-import { OPEN_STATUSES } from "@/lib/tickets/status";
+import { OPEN_STATUSES, type TicketStatus } from "@/lib/tickets/status";
 import { uniqueTagCode } from "@/lib/tickets/tickets";
 import { checkTagCode, formatTagCode } from "@/lib/trade/tag-code";
 
 /** What a scanned or typed code stands for (the answer of GET /api/tags/<code>). */
 export type TagResolution =
-  | { kind: "ticket"; ticketId: string }
-  | { kind: "replaced"; ticketId: string; currentCode: string }
+  | { kind: "ticket"; ticketId: string; number: number; status: TicketStatus }
+  | { kind: "replaced"; ticketId: string; number: number; status: TicketStatus; currentCode: string }
   | { kind: "sticker"; machineId: string; openTicketId?: string };
 
 /** The open ticket of a machine, newest first, if any. */
@@ -32,15 +32,15 @@ export function resolveTag(db: Db, input: string): TagResolution {
   const checked = checkTagCode(input);
   if (!checked.ok) throw new AppError("validation", checked.message, { fields: { code: checked.message } });
   const code = checked.value;
-  const ticket = db.select({ id: tickets.id }).from(tickets).where(eq(tickets.tagCode, code)).get();
-  if (ticket) return { kind: "ticket", ticketId: ticket.id };
+  const ticket = db.select({ id: tickets.id, number: tickets.number, status: tickets.status }).from(tickets).where(eq(tickets.tagCode, code)).get();
+  if (ticket) return { kind: "ticket", ticketId: ticket.id, number: ticket.number, status: ticket.status };
   const retired = db
-    .select({ ticketId: ticketTags.ticketId, currentCode: tickets.tagCode })
+    .select({ ticketId: ticketTags.ticketId, number: tickets.number, status: tickets.status, currentCode: tickets.tagCode })
     .from(ticketTags)
     .innerJoin(tickets, eq(tickets.id, ticketTags.ticketId))
     .where(eq(ticketTags.code, code))
     .get();
-  if (retired) return { kind: "replaced", ticketId: retired.ticketId, currentCode: retired.currentCode };
+  if (retired) return { kind: "replaced", ticketId: retired.ticketId, number: retired.number, status: retired.status, currentCode: retired.currentCode };
   const machine = db.select({ id: machines.id }).from(machines).where(eq(machines.stickerCode, code)).get();
   if (machine) {
     const open = openTicketOf(db, machine.id);

@@ -84,8 +84,9 @@ describe("replacing a tag", () => {
     expect(oldCode).toBe(t.tagCode);
     expect(newCode).not.toBe(oldCode);
     expect(ticketRow(ctx.db, t.id).tagCode).toBe(newCode);
-    expect(resolveTag(ctx.db, oldCode)).toEqual({ kind: "replaced", ticketId: t.id, currentCode: newCode });
-    expect(resolveTag(ctx.db, newCode)).toEqual({ kind: "ticket", ticketId: t.id });
+    const { number, status } = ticketRow(ctx.db, t.id);
+    expect(resolveTag(ctx.db, oldCode)).toEqual({ kind: "replaced", ticketId: t.id, number, status, currentCode: newCode });
+    expect(resolveTag(ctx.db, newCode)).toEqual({ kind: "ticket", ticketId: t.id, number, status });
     const log = ctx.db.select().from(auditLog).where(eq(auditLog.action, "ticket.tag_replaced")).get();
     expect(log?.details).toEqual({ oldCode, newCode, reason: "Tag melted off the muffler" });
   });
@@ -95,8 +96,9 @@ describe("replacing a tag", () => {
     const t = addTicket(ctx.db, { machineId: addMachine(ctx.db, cust), customerId: cust });
     const a = replaceTag(ctx.db, { ticketId: t.id, reason: "", actorId: null });
     const b = replaceTag(ctx.db, { ticketId: t.id, reason: "", actorId: null });
-    expect(resolveTag(ctx.db, a.oldCode)).toEqual({ kind: "replaced", ticketId: t.id, currentCode: b.newCode });
-    expect(resolveTag(ctx.db, b.oldCode)).toEqual({ kind: "replaced", ticketId: t.id, currentCode: b.newCode });
+    const { number, status } = ticketRow(ctx.db, t.id);
+    expect(resolveTag(ctx.db, a.oldCode)).toEqual({ kind: "replaced", ticketId: t.id, number, status, currentCode: b.newCode });
+    expect(resolveTag(ctx.db, b.oldCode)).toEqual({ kind: "replaced", ticketId: t.id, number, status, currentCode: b.newCode });
   });
 
   it("refuses an unknown ticket with not_found", () => {
@@ -108,7 +110,15 @@ describe("GET /api/tags/<code>", () => {
   it("answers a ticket's tag, forgiving case and the printed dash", async () => {
     const cust = addCustomer(ctx.db);
     const t = addTicket(ctx.db, { machineId: addMachine(ctx.db, cust), customerId: cust });
-    expect(await ask(formatTagCode(t.tagCode).toLowerCase())).toEqual({ status: 200, body: { kind: "ticket", ticketId: t.id } });
+    const { number, status } = ticketRow(ctx.db, t.id);
+    expect(await ask(formatTagCode(t.tagCode).toLowerCase())).toEqual({ status: 200, body: { kind: "ticket", ticketId: t.id, number, status } });
+  });
+
+  it("says when a ticket's tag belongs to a ticket that has left the shop (the bench tells the tech so)", async () => {
+    const cust = addCustomer(ctx.db);
+    const t = addTicket(ctx.db, { machineId: addMachine(ctx.db, cust), customerId: cust });
+    ctx.db.update(tickets).set({ status: "handed_back", closedAt: new Date() }).where(eq(tickets.id, t.id)).run();
+    expect((await ask(t.tagCode)).body).toMatchObject({ kind: "ticket", ticketId: t.id, status: "handed_back" });
   });
 
   it("answers a sticker with the machine's open ticket, and without one once none is open", async () => {
