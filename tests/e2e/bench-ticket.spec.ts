@@ -26,6 +26,7 @@ const DATA_DIR = path.resolve("tests/.tmp/e2e-data");
 const SHOTS = process.env.SCREENSHOTS ? "tests/.tmp/screens" : null;
 
 test.describe.configure({ timeout: 240_000 });
+test.use({ actionTimeout: 15_000 });
 
 function serverDb() {
   return new Database(path.join(DATA_DIR, "benchwright.sqlite"), { readonly: true, fileMustExist: true });
@@ -55,6 +56,8 @@ async function pick(page: Page, stepId: string, answer: string) {
   await expect(page.getByTestId(`saved-${stepId}`)).toContainText(answer);
 }
 
+let onFailure: () => Promise<void> = async () => undefined;
+
 test("a chain-saw diagnosis recorded offline on the phone reaches the server after sync", async ({ browser }) => {
   const saw = demoChainSaw();
 
@@ -77,6 +80,11 @@ test("a chain-saw diagnosis recorded offline on the phone reaches the server aft
     await context.grantPermissions(["camera"], { origin: BASE_URL });
     await context.addInitScript(RECORD_CAMERA_AND_VIBRATION);
     const page = await context.newPage();
+    page.on("pageerror", (e) => console.log(`[page error] ${e.message}`));
+    onFailure = async () => {
+      await page.screenshot({ path: test.info().outputPath("phone.png") });
+      console.log(await page.locator("main").ariaSnapshot().catch(() => "(no snapshot)"));
+    };
 
     // Take today's work (the first sync), then lose the network.
     await signInAs(page, DEMO.tech);
@@ -116,8 +124,7 @@ test("a chain-saw diagnosis recorded offline on the phone reaches the server aft
     await pick(page, "metering-diaphragm", "Stiff");
     await pick(page, "diaphragm-stem", "Short stem, matches the old");
     await pick(page, "check-valve", "Bent or curled");
-    await step(page, "metering-lever").getByRole("button", { name: "Sticks" }).click();
-    await expect(page.getByTestId("saved-metering-lever")).toContainText("Sticks");
+    await pick(page, "metering-lever", "Sticks");
     if (SHOTS) await page.screenshot({ path: `${SHOTS}/bench-ticket-carb.png` });
 
     // A finding from the diaphragm step, with a photo of the worn part.
@@ -216,6 +223,9 @@ test("a chain-saw diagnosis recorded offline on the phone reaches the server aft
     await expect(dp.getByText("Metering diaphragm stiff").first()).toBeVisible();
     await expect(dp.getByText("95 psi (low)").first()).toBeVisible();
     await desk.close();
+  } catch (e) {
+    await onFailure();
+    throw e;
   } finally {
     await camBrowser.close();
   }

@@ -71,7 +71,10 @@ export function FindingForm({
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const ref = useRef<HTMLElement>(null);
-  useEffect(() => ref.current?.scrollIntoView({ block: "start" }), []);
+  useEffect(() => {
+    // Braces: scrollIntoView returns a promise in newer browsers, and an effect may only return a cleanup.
+    void ref.current?.scrollIntoView({ block: "start" });
+  }, []);
   const set = (patch: Partial<Draft>) => setDraft({ ...draft, ...patch });
 
   const submit = async () => {

@@ -66,7 +66,9 @@ export function TicketScreen() {
   // server's HTML and the first client render agree ("Opening the ticket…").
   const params = useSearchParams();
   const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
+  useEffect(() => {
+    setHydrated(true);
+  }, []);
   const id = hydrated ? params.get("id") : undefined;
   const data = useTicketSheet(id ?? null);
   const { save } = useRecord();
