@@ -61,7 +61,7 @@ export function TodayList({ synced, storeKey }: { synced: boolean; storeKey: str
             type="search"
             value={query}
             onChange={(e) => setQuery(e.target.value)}
-            placeholder="Ticket, tag, make, customer…"
+            placeholder="Number, tag, make, name…"
             autoComplete="off"
             autoCorrect="off"
             spellCheck={false}
