@@ -71,7 +71,9 @@ export function ScanScreen() {
   const status = useSyncStatus();
   const now = useNow();
 
-  const found = useLiveQuery(() => (code ? findOnDevice(code).catch((): DeviceFind => ({ code, ticketId: null, failed: true })) : null), [code]);
+  // Read again after each sync too (see components/bench/today-list.tsx): a sync that brings the ticket opens it.
+  const synced = status ? `${status.tickets}:${status.lastSyncAt ?? ""}:${status.cursor}` : "";
+  const found = useLiveQuery(() => (code ? findOnDevice(code).catch((): DeviceFind => ({ code, ticketId: null, failed: true })) : null), [code, synced]);
   const current = found && found.code === code ? found : undefined;
   const openId = current?.ticketId ?? null;
 

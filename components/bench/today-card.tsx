@@ -29,7 +29,6 @@ export function TodayCard({ card, today }: { card: TicketCard; today: string }) 
         <span className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
           <span className="text-2xl font-black">#{ticket.number}</span>
           <span className="font-mono text-lg font-bold tracking-wider text-ink-2">{formatTagCode(ticket.tagCode)}</span>
-          <span className="ml-auto rounded-lg bg-surface-2 px-2 py-0.5 text-base font-semibold">{STATUS_LABELS[ticket.status]}</span>
         </span>
         <span className="text-xl font-bold leading-snug">
           {machineName}
@@ -37,27 +36,28 @@ export function TodayCard({ card, today }: { card: TicketCard; today: string }) 
         </span>
         {customer ? <span className="text-lg text-ink-2">{customer.lastName}</span> : null}
         {ticket.complaint ? <span className="line-clamp-2 text-lg leading-snug">{ticket.complaint}</span> : null}
-        {promised || waiting > 0 ? (
-          <span className="mt-1 flex flex-wrap gap-2">
-            {promised ? (
-              <span
-                className={
-                  "inline-flex items-center gap-1.5 rounded-lg px-2 py-1 text-base font-bold " +
-                  (promised.overdue ? "bg-bad-soft text-bad" : promised.today ? "bg-accent-soft" : "bg-surface-2")
-                }
-              >
-                <CalendarClock aria-hidden size={20} />
-                {promised.text}
-              </span>
-            ) : null}
-            {waiting > 0 ? (
-              <span data-testid="not-synced" className="inline-flex items-center gap-1.5 rounded-lg border-2 border-bad px-2 py-0.5 text-base font-bold">
-                <CloudUpload aria-hidden size={20} />
-                {notSyncedLabel(waiting)}
-              </span>
-            ) : null}
+        <span className="mt-1 flex flex-wrap gap-2">
+          <span data-testid="ticket-status" className="inline-flex items-center rounded-lg border-2 border-line px-2 py-0.5 text-base font-bold">
+            {STATUS_LABELS[ticket.status]}
           </span>
-        ) : null}
+          {promised ? (
+            <span
+              className={
+                "inline-flex items-center gap-1.5 rounded-lg px-2 py-1 text-base font-bold " +
+                (promised.overdue ? "bg-bad-soft text-bad" : promised.today ? "bg-accent-soft" : "bg-surface-2")
+              }
+            >
+              <CalendarClock aria-hidden size={20} />
+              {promised.text}
+            </span>
+          ) : null}
+          {waiting > 0 ? (
+            <span data-testid="not-synced" className="inline-flex items-center gap-1.5 rounded-lg border-2 border-bad px-2 py-0.5 text-base font-bold">
+              <CloudUpload aria-hidden size={20} />
+              {notSyncedLabel(waiting)}
+            </span>
+          ) : null}
+        </span>
       </span>
       <ChevronRight aria-hidden size={28} className="shrink-0 self-center text-muted" />
     </Link>

@@ -15,8 +15,10 @@ import { TodayCard } from "./today-card";
  * The tech's list for today, read from the device store only (so it works with no network): a search on top,
  * "Assigned to you" first, then every other open ticket, and the scan action below the list (thumb reach).
  */
-export function TodayList({ synced }: { synced: boolean }) {
-  const cards = useLiveQuery(() => ticketsForToday(), []);
+export function TodayList({ synced, storeKey }: { synced: boolean; storeKey: string }) {
+  // Live on its own; `storeKey` (the sync status's counts and times, which stay live in every case seen) also makes
+  // it read again after each sync: a first sync on a fresh phone was seen not to wake this query in Chromium.
+  const cards = useLiveQuery(() => ticketsForToday(), [storeKey]);
   const [query, setQuery] = useState("");
   const today = localIsoDate(new Date(useNow(60_000)));
   const searchId = useId();
@@ -59,7 +61,7 @@ export function TodayList({ synced }: { synced: boolean }) {
             type="search"
             value={query}
             onChange={(e) => setQuery(e.target.value)}
-            placeholder="Ticket, tag, make, customer…"
+            placeholder="Number, tag, make, name…"
             autoComplete="off"
             autoCorrect="off"
             spellCheck={false}

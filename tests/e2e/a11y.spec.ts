@@ -16,6 +16,22 @@ const PAGES: { name: string; as?: string; path: string; ready: (page: Page) => P
   { name: "sign-in", path: "/sign-in", ready: (p) => expect(p.getByRole("heading", { name: "Sign in" })).toBeVisible() },
   { name: "bench", as: DEMO.tech, path: "/bench", ready: (p) => expect(p.getByText("Signed in as")).toContainText("Tomas") },
   {
+    name: "bench, today's list",
+    as: DEMO.tech,
+    path: "/bench",
+    ready: (p) => expect(p.getByTestId("today-card").first()).toBeVisible({ timeout: 20_000 }),
+  },
+  {
+    name: "bench/scan, a tag not on this phone",
+    as: DEMO.tech,
+    path: "/bench/scan",
+    ready: async (p) => {
+      await p.getByLabel("Or type the tag code").fill("HAW-BR7H"); // the app's example code; no demo ticket carries it
+      await p.getByRole("button", { name: "Open" }).click();
+      await expect(p.getByRole("heading", { name: "Tag HAW-BR7H is not on this phone" })).toBeVisible();
+    },
+  },
+  {
     name: "bench/device",
     as: DEMO.tech,
     path: "/bench/device",

@@ -17,8 +17,20 @@ export class ScanPage {
     return this.page.getByTestId("tag-code");
   }
 
+  /** "Looking up…" / "Opening ticket #…" while the phone looks for the code. */
   lookup() {
     return this.page.getByTestId("ticket-lookup");
+  }
+
+  /** The message for a code this phone does not hold. */
+  notOnPhone(code?: string) {
+    const box = this.page.getByTestId("not-on-phone");
+    return code ? box.filter({ has: this.page.getByRole("heading", { name: `Tag ${code} is not on this phone` }) }) : box;
+  }
+
+  /** The server's answer after "Look it up online". */
+  onlineAnswer() {
+    return this.page.getByTestId("online-answer");
   }
 
   manualField() {
