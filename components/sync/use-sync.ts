@@ -7,7 +7,9 @@ import { getServerSnapshot, getSnapshot, startSyncScheduler, subscribe, type Liv
 
 /** Online / running / progress, live; starts the sync triggers on first use. */
 export function useLiveSync(): LiveSyncState {
-  useEffect(() => startSyncScheduler(), []);
+  useEffect(() => {
+    startSyncScheduler();
+  }, []);
   return useSyncExternalStore(subscribe, getSnapshot, getServerSnapshot);
 }
 

@@ -17,12 +17,22 @@ import type { EngineType, MachineKind } from "../tickets/machine";
 
 const byTime = <T extends { at: string; id: string }>(a: T, b: T) => (a.at < b.at ? -1 : a.at > b.at ? 1 : a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
 
-/** The procedures this phone holds (pulled from the shop), parsed; a definition that does not parse is left out. */
+const parsed = new Map<string, Procedure | null>();
+
+/**
+ * The procedures this phone holds (pulled from the shop), parsed; a definition that does not parse is left out.
+ * A procedure id and version never change meaning, so each is parsed once (the sheet re-reads on every tap).
+ */
 export function parseProcedures(rows: readonly ProcedureRow[]): Procedure[] {
   const out: Procedure[] = [];
   for (const r of rows) {
-    const p = procedureSchema.safeParse(r.definition);
-    if (p.success) out.push(p.data);
+    const key = `${r.id}@${r.version}`;
+    if (!parsed.has(key)) {
+      const p = procedureSchema.safeParse(r.definition);
+      parsed.set(key, p.success && p.data.id === r.id && p.data.version === r.version ? p.data : null);
+    }
+    const p = parsed.get(key);
+    if (p) out.push(p);
   }
   return out;
 }

@@ -35,10 +35,11 @@ export interface TicketCard {
 async function cards(db: DeviceDb, tickets: TicketRow[], me: string | null): Promise<TicketCard[]> {
   const machines = new Map((await db.machines.bulkGet(tickets.map((t) => t.machineId))).filter(Boolean).map((m) => [m!.id, m!]));
   const customers = new Map((await db.customers.bulkGet(tickets.map((t) => t.customerId))).filter(Boolean).map((c) => [c!.id, c!]));
+  // Keys only (the ticketId index): the changes' args are never read here.
   const waiting = new Map<string, number>();
-  await db.outbox.each((e) => {
-    if (e.ticketId) waiting.set(e.ticketId, (waiting.get(e.ticketId) ?? 0) + 1);
-  });
+  for (const key of await db.outbox.orderBy("ticketId").keys()) {
+    if (typeof key === "string") waiting.set(key, (waiting.get(key) ?? 0) + 1);
+  }
   return tickets.map((ticket) => ({
     ticket,
     machine: machines.get(ticket.machineId) ?? null,
@@ -142,6 +143,11 @@ export async function waitingRowKeys(db?: DeviceDb): Promise<Set<string>> {
   const keys = new Set<string>();
   await pick(db).outbox.each((e) => keys.add(`${MUTATION_ENTITY[e.name]}:${e.entityId}`));
   return keys;
+}
+
+/** Ids of the rows with a change still waiting to go out (row ids are UUIDs, unique across tables). Keys only. */
+export async function waitingRowIds(db?: DeviceDb): Promise<Set<string>> {
+  return new Set((await pick(db).outbox.orderBy("entityId").uniqueKeys()).map(String));
 }
 
 /** The outbox, oldest first. */

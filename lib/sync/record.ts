@@ -11,13 +11,14 @@ import { zodFields } from "../http/errors";
 import {
   BENCH_STATUSES,
   CREATING_MUTATIONS,
+  MUTATION_ENTITY,
   entityIdOf,
   mutationSchemas,
   type MutationArgs,
   type MutationName,
   type TuneEntryRow,
 } from "./protocol";
-import { getDeviceDb, readDeviceUser, readIdentity, readSyncState, writeMeta, type AttentionEntry, type DeviceDb, type OutboxEntry } from "./device-db";
+import { ENTITY_TABLE, getDeviceDb, readDeviceUser, readIdentity, readSyncState, writeMeta, type AttentionEntry, type DeviceDb, type OutboxEntry } from "./device-db";
 import { applyLocalEffect } from "./effects";
 import { uuid } from "./ids";
 import { createdRow } from "./rows";
@@ -144,12 +145,22 @@ async function prepare(db: DeviceDb, name: MutationName, input: Record<string, u
   return { args: data, ticketId };
 }
 
+/**
+ * The tables one change reads and writes. The transaction takes only these, so a screen reading other tables
+ * (a live query re-reading the sheet, a sync reading another table) never holds the tap up.
+ */
+function recordTables(db: DeviceDb, name: MutationName) {
+  const names = new Set<string>(["meta", "outbox", "tickets", ENTITY_TABLE[MUTATION_ENTITY[name]]]);
+  if (name === "photo.attached") names.add("photoBlobs");
+  return [...names];
+}
+
 /** Records a change on this phone (local rows + outbox entry, one transaction). */
 export async function record<N extends MutationName>(name: N, input: RecordInput<N>, options: RecordOptions = {}): Promise<Recorded> {
   if (!(name in mutationSchemas)) throw new RecordError("invalid", `Unknown change "${String(name)}".`);
   const db = options.db ?? (await getDeviceDb());
   const now = options.now ?? new Date();
-  return db.transaction("rw", db.tables, async () => {
+  return db.transaction("rw", recordTables(db, name), async () => {
     const user = await readDeviceUser(db);
     const sync = await readSyncState(db);
     if (!user || sync.signedOut) throw new RecordError("not_signed_in", "Sign in on this phone first.");

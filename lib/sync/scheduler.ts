@@ -124,14 +124,22 @@ export function startSyncScheduler(): void {
   exposeTestHooks();
 }
 
-/** For browser tests only: with localStorage "benchwright.testHooks" = "1", the page exposes record/sync. */
+/** For browser tests and benchmarks only: with localStorage "benchwright.testHooks" = "1", the page exposes record/sync. */
 function exposeTestHooks() {
   try {
     if (localStorage.getItem("benchwright.testHooks") !== "1") return;
   } catch {
     return;
   }
-  void Promise.all([import("./record"), import("./device-db")]).then(([rec, store]) => {
-    (window as unknown as Record<string, unknown>).__benchwrightSync = { record: rec.record, requestSync, getDeviceDb: store.getDeviceDb };
+  void Promise.all([import("./record"), import("./device-db"), import("./effects"), import("./protocol")]).then(([rec, store, effects, protocol]) => {
+    (window as unknown as Record<string, unknown>).__benchwrightSync = {
+      record: rec.record,
+      requestSync,
+      getDeviceDb: store.getDeviceDb,
+      // For the device benchmark: apply pull pages to a scratch store the way a sync does.
+      DeviceDb: store.DeviceDb,
+      applyServerChanges: effects.applyServerChanges,
+      pullResponseSchema: protocol.pullResponseSchema,
+    };
   });
 }

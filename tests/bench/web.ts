@@ -14,10 +14,11 @@ import os from "node:os";
 import path from "node:path";
 import { createRequire } from "node:module";
 import zlib from "node:zlib";
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync } from "node:child_process";
 import { chromium, type Browser } from "@playwright/test";
 import { buildIfNeeded } from "../../scripts/lib/build";
 import { CHROMIUM_ARGS } from "../../playwright.config";
+import { LOGINS, median, sessionCookie, startServer, stopServer, type Role } from "./lib/server";
 
 process.env.NEXT_TELEMETRY_DISABLED = "1";
 const require = createRequire(import.meta.url);
@@ -26,13 +27,7 @@ const BASE = `http://localhost:${PORT}`;
 const CHROMIUM = process.env.CHROMIUM_PATH || "/usr/bin/chromium";
 const RUNS = Number(process.env.LIGHTHOUSE_RUNS || 3);
 const OUT = path.resolve("bench-results");
-const PASSWORD = "benchwright-demo";
-const LOGINS = {
-  tech: "tech@demo.benchwright.test",
-  counter: "counter@demo.benchwright.test",
-  owner: "owner@demo.benchwright.test",
-} as const;
-type Role = keyof typeof LOGINS;
+
 
 /** Main routes and who opens them. */
 const ROUTES: { path: string; as?: Role }[] = [
@@ -53,66 +48,6 @@ const LIGHTHOUSE_BUDGET = { performance: 90, accessibility: 95, best_practices: 
 
 function log(line: string) {
   console.log(`[bench:web] ${line}`);
-}
-
-async function startServer(): Promise<ChildProcess> {
-  const server = spawn("npx", ["tsx", "scripts/e2e-server.ts"], {
-    detached: true,
-    stdio: ["ignore", "pipe", "pipe"],
-    env: {
-      ...process.env,
-      PORT: String(PORT),
-      DATA_DIR: "tests/.tmp/bench-web-data",
-      AUTH_SECRET: "bench-web-only-secret-not-for-production-0123",
-      SKIP_BUILD: "1",
-      BCRYPT_COST: "8",
-    },
-  });
-  let output = "";
-  server.stdout?.on("data", (d) => (output += d));
-  server.stderr?.on("data", (d) => (output += d));
-  for (let i = 0; i < 240; i++) {
-    try {
-      if ((await fetch(`${BASE}/api/health`)).ok) return server;
-    } catch {
-      // not up yet
-    }
-    if (server.exitCode !== null) break;
-    await new Promise((r) => setTimeout(r, 500));
-  }
-  stopServer(server);
-  throw new Error(`the server on ${BASE} did not start:\n${output}`);
-}
-
-function stopServer(server: ChildProcess) {
-  // Our own process group only (started detached above).
-  if (server.pid) {
-    try {
-      process.kill(-server.pid, "SIGTERM");
-    } catch {
-      // already gone
-    }
-  }
-}
-
-/** Signs in through next-auth's own endpoints and returns the session cookie. */
-async function sessionCookie(role: Role): Promise<{ name: string; value: string }> {
-  const csrfRes = await fetch(`${BASE}/api/auth/csrf`);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const jar = csrfRes.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar },
-    body: new URLSearchParams({ csrfToken, email: LOGINS[role], password: PASSWORD }),
-  });
-  const session = res.headers
-    .getSetCookie()
-    .map((c) => c.split(";")[0]!)
-    .find((c) => /session-token=/.test(c));
-  if (!session) throw new Error(`could not sign in as ${role} (status ${res.status})`);
-  const eq = session.indexOf("=");
-  return { name: session.slice(0, eq), value: session.slice(eq + 1) };
 }
 
 /**
@@ -200,20 +135,15 @@ function lighthouseRun(url: string, cookieHeader?: string): { scores: Scores; re
   }
 }
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)]!;
-};
-
 async function main() {
   buildIfNeeded();
   fs.mkdirSync(OUT, { recursive: true });
-  const server = await startServer();
+  const server = await startServer(PORT, "tests/.tmp/bench-web-data");
   const stop = () => stopServer(server);
   process.on("SIGINT", () => (stop(), process.exit(130)));
   try {
     const cookies: Partial<Record<Role, { name: string; value: string }>> = {};
-    for (const role of Object.keys(LOGINS) as Role[]) cookies[role] = await sessionCookie(role);
+    for (const role of Object.keys(LOGINS) as Role[]) cookies[role] = await sessionCookie(BASE, role);
 
     // 1. JavaScript per route.
     const browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });

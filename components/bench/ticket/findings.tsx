@@ -282,7 +282,7 @@ export function FindingsList({
             <p className="text-sm font-black uppercase tracking-wider">
               {GRADE_LABELS[f.grade]}
               {f.withdrawn ? " · withdrawn" : ""}
-              {waiting.has(`finding:${f.id}`) ? " · not sent yet" : ""}
+              {waiting.has(f.id) ? " · not sent yet" : ""}
             </p>
             <h3 className={"text-xl font-bold " + (f.withdrawn ? "line-through" : "")}>{f.title}</h3>
             {f.note ? <p className="text-base">{f.note}</p> : null}

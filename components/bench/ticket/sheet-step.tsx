@@ -1,6 +1,6 @@
 "use client";
 
-import { useState, type ReactNode } from "react";
+import { memo, useState, type ReactNode } from "react";
 import { CheckCircle2, CloudUpload, Flag, Undo2 } from "lucide-react";
 import { ChoiceChips } from "../choice-chips";
 import { PassFail } from "../pass-fail";
@@ -20,16 +20,47 @@ import type { SaveOutcome, useRecord } from "./use-record";
 
 type Save = ReturnType<typeof useRecord>["save"];
 
+/** What every step shares; stable while the ticket is open, so a step re-renders only when its own rows change. */
 export interface StepContext {
   ticketId: string;
   procedure: Procedure;
   save: Save;
-  waiting: Set<string>;
   disabled: boolean;
   onAddFinding: (stepId: string, title: string) => void;
-  tuneLog: TuneLog;
-  tuneRowsWaiting: number;
 }
+
+export interface StepProps {
+  step: Step;
+  index: number;
+  latest: BenchEntryRow | undefined;
+  history: readonly BenchEntryRow[];
+  photos: readonly PhotoWithBlob[];
+  ctx: StepContext;
+  /** Show the cautions in full (the first step of the sheet with these hazards); elsewhere titles only, one tap away. */
+  fullCautions: boolean;
+  /** The latest answer has not reached the server yet. */
+  notSent: boolean;
+  /** For a tune step: the replayed log and how many of its entries wait to be sent. */
+  tune?: { log: TuneLog; waiting: number };
+}
+
+const sameRows = <T extends { id: string }>(a: readonly T[], b: readonly T[]) => a.length === b.length && a.every((x, i) => x.id === b[i]!.id);
+
+/** A step re-renders only when its own rows, its place or its cautions change (the sheet re-reads on every save). */
+export const SheetStep = memo(SheetStepView, (a, b) =>
+  a.step === b.step &&
+  a.index === b.index &&
+  a.ctx === b.ctx &&
+  a.fullCautions === b.fullCautions &&
+  a.notSent === b.notSent &&
+  a.latest?.id === b.latest?.id &&
+  a.latest?.voidedAt === b.latest?.voidedAt &&
+  sameRows(a.history, b.history) &&
+  a.history.every((e, i) => e.voidedAt === b.history[i]!.voidedAt) &&
+  sameRows(a.photos, b.photos) &&
+  a.photos.every((p, i) => p.blob === b.photos[i]!.blob) &&
+  a.tune === b.tune,
+);
 
 const timeOf = (iso: string) => new Date(iso).toLocaleTimeString([], { hour: "numeric", minute: "2-digit" });
 
@@ -37,29 +68,11 @@ const timeOf = (iso: string) => new Date(iso).toLocaleTimeString([], { hour: "nu
  * One step of the bench sheet: its cautions (from the registry), the input for its kind, what was recorded and
  * when, an undo (a void entry, so the history keeps it), and "add a finding" from here.
  */
-export function SheetStep({
-  step,
-  index,
-  latest,
-  history,
-  photos,
-  ctx,
-  fullCautions,
-}: {
-  /** Show the cautions in full (the first step of the sheet with these hazards); elsewhere titles only, one tap away. */
-  fullCautions: boolean;
-  step: Step;
-  index: number;
-  latest: BenchEntryRow | undefined;
-  history: readonly BenchEntryRow[];
-  photos: readonly PhotoWithBlob[];
-  ctx: StepContext;
-}) {
+function SheetStepView({ step, index, latest, history, photos, ctx, fullCautions, notSent, tune }: StepProps) {
   const [error, setError] = useState<string | null>(null);
   const [showHistory, setShowHistory] = useState(false);
   const value = latest?.value as StepValue | undefined;
-  const answered = latest !== undefined || (step.kind === "photo" && photos.length > 0) || (step.kind === "tune" && ctx.tuneLog.baselined.size > 0);
-  const notSent = latest ? ctx.waiting.has(`bench_entry:${latest.id}`) : false;
+  const answered = latest !== undefined || (step.kind === "photo" && photos.length > 0) || (step.kind === "tune" && (tune?.log.baselined.size ?? 0) > 0);
 
   const done = (r: SaveOutcome) => {
     setError(r.ok ? null : r.message);
@@ -160,7 +173,7 @@ export function SheetStep({
       input = (
         <div className="flex flex-col gap-3">
           <StepTitle step={step} />
-          <TunePanel screws={step.screws} ticketId={ctx.ticketId} log={ctx.tuneLog} save={ctx.save} disabled={ctx.disabled} waiting={ctx.tuneRowsWaiting} />
+          {tune ? <TunePanel screws={step.screws} ticketId={ctx.ticketId} log={tune.log} save={ctx.save} disabled={ctx.disabled} waiting={tune.waiting} /> : null}
         </div>
       );
       break;

@@ -116,7 +116,7 @@ export function TicketNotes({ ticketId, notes, save, disabled, waiting }: { tick
               <p className="whitespace-pre-wrap text-base">{n.text}</p>
               <p className="text-sm text-ink-2">
                 {timeOf(n.at)}
-                {waiting.has(`ticket_note:${n.id}`) ? " · not sent yet" : ""}
+                {waiting.has(n.id) ? " · not sent yet" : ""}
               </p>
             </li>
           ))}

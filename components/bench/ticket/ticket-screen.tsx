@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useMemo, useState } from "react";
+import { startTransition, useEffect, useMemo, useState } from "react";
 import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { CheckCircle2, Flag, ListChecks, Sun } from "lucide-react";
@@ -21,6 +21,10 @@ import { CONDITION_LABELS, type ConditionFlag } from "@/lib/tickets/intake";
 import { STATUS_LABELS } from "@/lib/tickets/status";
 import { INTAKE_PHOTO_STEP } from "@/lib/counter/bench-sheet-view";
 import { PhotoThumbs } from "./photo-thumbs";
+import type { BenchEntryRow } from "@/lib/sync/protocol";
+import type { PhotoWithBlob } from "@/lib/sync/read";
+
+const NONE: never[] = [];
 
 function goToStep(stepId: string) {
   const el = document.getElementById(`step-${stepId}`);
@@ -74,21 +78,35 @@ export function TicketScreen() {
   const { save } = useRecord();
   const wake = useWakeLock(Boolean(data));
   const [draft, setDraft] = useState<ReturnType<typeof newFindingDraft> | null>(null);
+  // The first screenful shows at once; the rest of a long sheet is drawn right after, without holding up the first.
+  const [allSections, setAllSections] = useState(false);
+  const ready = Boolean(data);
+  useEffect(() => {
+    if (!ready) return;
+    const t = setTimeout(() => startTransition(() => setAllSections(true)), 0);
+    return () => clearTimeout(t);
+  }, [ready]);
 
-  const ctx: StepContext | null = useMemo(() => {
-    if (!data || !data.sheet.procedure) return null;
-    const tuneWaiting = data.tune.filter((t) => data.waiting.has(`tune_entry:${t.id}`)).length;
-    return {
-      ticketId: data.card.ticket.id,
-      procedure: data.sheet.procedure,
-      save,
-      waiting: data.waiting,
-      disabled: false,
-      onAddFinding: (stepId, title) => setDraft((d) => d ?? newFindingDraft(stepId, title)),
-      tuneLog: data.tuneLog,
-      tuneRowsWaiting: tuneWaiting,
-    };
-  }, [data, save]);
+  const ticketId = data?.card.ticket.id;
+  const procedure = data?.sheet.procedure;
+  const ctx: StepContext | null = useMemo(
+    () =>
+      ticketId && procedure
+        ? { ticketId, procedure, save, disabled: false, onAddFinding: (stepId, title) => setDraft((d) => d ?? newFindingDraft(stepId, title)) }
+        : null,
+    [ticketId, procedure, save],
+  );
+  const byStep = useMemo(() => {
+    const history = new Map<string, BenchEntryRow[]>();
+    for (const e of data?.entries.history ?? []) history.set(e.stepId, [...(history.get(e.stepId) ?? []), e]);
+    const photos = new Map<string, PhotoWithBlob[]>();
+    for (const p of data?.photos ?? []) if (p.stepId && !p.findingId) photos.set(p.stepId, [...(photos.get(p.stepId) ?? []), p]);
+    return { history, photos };
+  }, [data?.entries.history, data?.photos]);
+  const tune = useMemo(
+    () => (data ? { log: data.tuneLog, waiting: data.tune.filter((t) => data.waiting.has(t.id)).length } : undefined),
+    [data],
+  );
 
   if (id === undefined) {
     return (
@@ -137,10 +155,8 @@ export function TicketScreen() {
 
   const { card, sheet } = data;
   const { ticket, machine, customer } = card;
-  const procedure = sheet.procedure;
   const latest = data.entries.latest;
   const nextOpen = sheet.open[0];
-  const stepPhotos = (stepId: string) => data.photos.filter((p) => p.stepId === stepId && !p.findingId);
   const intakePhotos = data.photos.filter((p) => p.stepId === INTAKE_PHOTO_STEP);
   let n = 0;
   // Cautions in full where a hazard first comes up on the sheet; later steps with the same hazard show titles only.
@@ -214,7 +230,7 @@ export function TicketScreen() {
               </section>
             ) : null}
 
-            {procedure.sections.map((section) => {
+            {procedure.sections.slice(0, allSections ? undefined : 2).map((section) => {
               const steps = section.steps.filter((s) => sheet.visible.has(s.id));
               if (steps.length === 0) return null;
               return (
@@ -228,10 +244,12 @@ export function TicketScreen() {
                       step={step}
                       index={++n}
                       latest={latest[step.id]}
-                      history={data.entries.history.filter((e) => e.stepId === step.id)}
-                      photos={stepPhotos(step.id)}
+                      history={byStep.history.get(step.id) ?? NONE}
+                      photos={byStep.photos.get(step.id) ?? NONE}
                       ctx={ctx}
                       fullCautions={fullCautionsAt.has(step.id)}
+                      notSent={latest[step.id] ? data.waiting.has(latest[step.id]!.id) : false}
+                      tune={step.kind === "tune" ? tune : undefined}
                     />
                   ))}
                 </section>

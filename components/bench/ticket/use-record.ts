@@ -1,6 +1,6 @@
 "use client";
 
-import { useCallback, useState } from "react";
+import { useCallback } from "react";
 import { record, RecordError, type RecordInput, type Recorded, type RecordOptions } from "@/lib/sync/record";
 import type { MutationName } from "@/lib/sync/protocol";
 import { requestSync } from "@/lib/sync/scheduler";
@@ -26,9 +26,8 @@ export type SaveOutcome = { ok: true; recorded: Recorded } | { ok: false; messag
  * caller keeps what was typed. A few seconds after the last save, a sync is asked for when there is a network.
  */
 export function useRecord() {
-  const [busy, setBusy] = useState(false);
+  // No "busy" state here: a re-render of the sheet between the tap and the commit would only delay the save.
   const save = useCallback(async <N extends MutationName>(name: N, input: RecordInput<N>, options?: RecordOptions): Promise<SaveOutcome> => {
-    setBusy(true);
     try {
       const recorded = await record(name, input, options);
       window.dispatchEvent(new CustomEvent<SavedDetail>(SAVED_EVENT, { detail: { name, seq: recorded.seq, at: performance.now() } }));
@@ -38,9 +37,7 @@ export function useRecord() {
       if (e instanceof RecordError) return { ok: false, message: e.message, fields: e.fields };
       const message = e instanceof Error && e.name === "QuotaExceededError" ? "The phone is out of storage: nothing was saved. Free some space and try again." : "Could not save on this phone. Nothing was changed; try again.";
       return { ok: false, message };
-    } finally {
-      setBusy(false);
     }
   }, []);
-  return { save, busy };
+  return { save };
 }

@@ -11,7 +11,7 @@ import {
   photosFor,
   ticketById,
   tuneEntriesFor,
-  waitingRowKeys,
+  waitingRowIds,
   type BenchSheetEntries,
   type PhotoWithBlob,
   type TicketCard,
@@ -30,7 +30,7 @@ export interface TicketSheetData {
   labor: LaborEntryRow[];
   notes: TicketNoteRow[];
   sheet: SheetState;
-  /** "entity:id" of rows with changes not yet on the server. */
+  /** Ids of rows with changes not yet on the server. */
   waiting: Set<string>;
 }
 
@@ -52,7 +52,7 @@ export function useTicketSheet(ticketId: string | null): TicketSheetData | null 
       laborFor(ticketId, db),
       notesFor(ticketId, db),
       db.procedures.toArray(),
-      waitingRowKeys(db),
+      waitingRowIds(db),
     ]);
     return { card, user, entries, findings, tune, photos, labor, notes, procedures, waiting };
   }, [ticketId]);
