@@ -56,6 +56,16 @@ async function pick(page: Page, stepId: string, answer: string) {
   await expect(page.getByTestId(`saved-${stepId}`)).toContainText(answer);
 }
 
+/** Greasy hands: every button, photo button and bottom-bar link on the sheet is at least 56 px tall (WCAG 2.5.5 asks 44). */
+async function expectBigTargets(page: Page) {
+  const small = await page.locator("main button, main label[for]:has(svg), nav a").evaluateAll((els) =>
+    els
+      .map((e) => ({ text: (e.getAttribute("aria-label") ?? e.textContent ?? "").trim().slice(0, 40), h: e.getBoundingClientRect().height }))
+      .filter((b) => b.h > 0 && b.h < 56),
+  );
+  expect(small).toEqual([]);
+}
+
 let onFailure: () => Promise<void> = async () => undefined;
 
 test("a chain-saw diagnosis recorded offline on the phone reaches the server after sync", async ({ browser }) => {
@@ -97,6 +107,7 @@ test("a chain-saw diagnosis recorded offline on the phone reaches the server aft
     await expect(page).toHaveURL(new RegExp(`/bench/ticket\\?id=${saw.id}$`), { timeout: 20_000 });
     await expect(page.getByRole("heading", { level: 1 })).toContainText(`#${saw.number}`);
     if (SHOTS) await page.screenshot({ path: `${SHOTS}/bench-ticket-top.png` });
+    await expectBigTargets(page);
 
     // Condition at intake; one answer taken back (Undo is a void: the history keeps it).
     await pick(page, "chain-tension", "Loose or sagging");
@@ -168,6 +179,7 @@ test("a chain-saw diagnosis recorded offline on the phone reaches the server aft
     await page.getByRole("region", { name: "Labor timer" }).getByRole("button", { name: "Start timer" }).click();
     await expect(page.getByRole("region", { name: "Labor timer" })).toContainText("Timer running");
     if (SHOTS) await page.screenshot({ path: `${SHOTS}/bench-ticket-finding.png`, fullPage: false });
+    await expectBigTargets(page);
 
     // Reload with no network: everything is still on the phone.
     await page.reload();

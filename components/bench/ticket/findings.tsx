@@ -161,7 +161,7 @@ export function FindingForm({
         {draft.photos.length ? (
           <ul className="flex flex-wrap gap-3">
             {draft.photos.map((p, i) => (
-              <li key={p.id} className="relative">
+              <li key={p.id} className="flex flex-col items-center gap-2">
                 {/* eslint-disable-next-line @next/next/no-img-element */}
                 <img src={p.url} alt={`New finding, photo ${i + 1}`} className="h-24 w-24 rounded-xl border-2 border-line object-cover" />
                 <button
@@ -171,9 +171,9 @@ export function FindingForm({
                     URL.revokeObjectURL(p.url);
                     set({ photos: draft.photos.filter((x) => x.id !== p.id) });
                   }}
-                  className="absolute -right-2 -top-2 flex h-10 w-10 items-center justify-center rounded-full border-2 border-line bg-surface"
+                  className="tap-bench inline-flex items-center justify-center gap-1 rounded-2xl border-2 border-line bg-surface px-3 text-base font-bold"
                 >
-                  <X aria-hidden size={20} />
+                  <X aria-hidden size={20} /> Leave out
                 </button>
               </li>
             ))}
