@@ -233,7 +233,7 @@ export function FindingForm({
           {message}
         </p>
       ) : null}
-      <div className="sticky bottom-24 z-[5] flex gap-3 bg-surface py-2">
+      <div className="sticky bottom-[4.5rem] z-[5] -mx-4 flex gap-3 border-t-2 border-line bg-surface px-4 py-3">
         <button type="button" disabled={busy} onClick={() => void submit()} className="tap-bench flex-1 rounded-2xl bg-accent px-5 text-lg font-bold text-accent-ink disabled:opacity-50">
           Save finding
         </button>

@@ -16,6 +16,7 @@ import { LaborTimer, StatusPicker, TicketNotes } from "./ticket-parts";
 import { SAVED_EVENT, useRecord, type SavedDetail } from "./use-record";
 import { useTicketSheet } from "./use-ticket-sheet";
 import { formatTagCode } from "@/lib/trade/tag-code";
+import { localIsoDate, promisedLabel } from "@/lib/bench/today";
 import { MACHINE_KIND_LABELS } from "@/lib/tickets/machine";
 import { CONDITION_LABELS, type ConditionFlag } from "@/lib/tickets/intake";
 import { STATUS_LABELS } from "@/lib/tickets/status";
@@ -50,9 +51,9 @@ function SavedFlash() {
     };
   }, []);
   return (
-    <div role="status" aria-live="polite" className="pointer-events-none fixed inset-x-0 bottom-24 z-20 flex justify-center px-4">
+    <div role="status" aria-live="polite" className="pointer-events-none fixed inset-x-0 top-[4.75rem] z-20 flex justify-center px-4">
       {shown !== null ? (
-        <p className="inline-flex items-center gap-2 rounded-full bg-ink px-5 py-3 text-lg font-bold text-bg shadow-lg" data-testid="saved-flash">
+        <p className="inline-flex items-center gap-2 rounded-full bg-ink px-4 py-2 text-base font-bold text-bg shadow-lg" data-testid="saved-flash">
           <CheckCircle2 aria-hidden /> Saved on this phone
         </p>
       ) : null}
@@ -196,7 +197,11 @@ export function TicketScreen() {
             </p>
           ) : null}
           {ticket.accessories ? <p className="text-base">Left with it: {ticket.accessories}</p> : null}
-          {ticket.promisedDate ? <p className="text-base font-semibold">Promised {ticket.promisedDate}</p> : null}
+          {ticket.promisedDate ? (
+            <p className={"text-base font-semibold " + (promisedLabel(ticket.promisedDate, localIsoDate(new Date()))?.overdue ? "text-bad" : "")}>
+              {promisedLabel(ticket.promisedDate, localIsoDate(new Date()))?.text ?? `Promised ${ticket.promisedDate}`}
+            </p>
+          ) : null}
           <PhotoThumbs photos={intakePhotos} label="Intake" />
         </section>
 
