@@ -15,14 +15,10 @@
  * Targets: tap-to-saved p95 ≤ 16 ms; scan-to-open median ≤ 700 ms. The last line printed is one JSON object.
  * BENCH_STRICT=1 exits 1 when a target is missed. Port: BENCH_DEVICE_PORT (default 3403).
  */
-import path from "node:path";
-import { PNG } from "pngjs";
 import { chromium, type Page } from "@playwright/test";
-import Database from "better-sqlite3";
 import { buildIfNeeded } from "../../scripts/lib/build";
 import { CHROMIUM_ARGS } from "../../playwright.config";
-import { renderPdfPage } from "../fixtures/barcode";
-import { CLIP_DIR, centreOnWhite, writeY4m } from "../fixtures/y4m";
+import { demoChainSaw, labelClip } from "../fixtures/printed-tag";
 import { LOGINS, median, percentile, sessionCookie, startServer, stopServer } from "./lib/server";
 
 process.env.NEXT_TELEMETRY_DISABLED = "1";
@@ -39,22 +35,6 @@ const TARGET = { tap_p95_ms: 16, scan_open_median_ms: 700 };
 
 const log = (line: string) => console.log(`[bench:device] ${line}`);
 const round = (x: number, d = 1) => Math.round(x * 10 ** d) / 10 ** d;
-
-function demoChainSaw(): { id: string } {
-  const db = new Database(path.join(DATA_DIR, "benchwright.sqlite"), { readonly: true, fileMustExist: true });
-  try {
-    const row = db
-      .prepare(
-        `SELECT t.id FROM tickets t JOIN machines m ON m.id = t.machine_id JOIN users u ON u.id = t.assigned_tech_id
-         WHERE m.kind = 'chain_saw' AND t.status = 'on_bench' AND u.email = ? ORDER BY t.number LIMIT 1`,
-      )
-      .get(LOGINS.tech) as { id: string } | undefined;
-    if (!row) throw new Error("no demo chain saw on the bench");
-    return row;
-  } finally {
-    db.close();
-  }
-}
 
 async function signIn(page: Page) {
   await page.goto("/sign-in");
@@ -234,13 +214,11 @@ async function main() {
   const server = await startServer(PORT, DATA_DIR);
   process.on("SIGINT", () => (stopServer(server), process.exit(130)));
   try {
-    const saw = demoChainSaw();
+    const saw = demoChainSaw(DATA_DIR, LOGINS.tech);
     // The printed tag: the counter's 4×2 in label at 150 dpi, centred in a 640×480 frame.
     const cookie = await sessionCookie(BASE, "counter");
     const pdf = new Uint8Array(await (await fetch(`${BASE}/api/labels/tickets/${saw.id}?layout=label-4x2`, { headers: { cookie: `${cookie.name}=${cookie.value}` } })).arrayBuffer());
-    const png = PNG.sync.read(renderPdfPage(pdf, { dpi: 150 }));
-    const clip = path.join(CLIP_DIR, "bench-device-tag.y4m");
-    writeY4m(clip, centreOnWhite({ width: png.width, height: png.height, data: png.data }));
+    const clip = labelClip("bench-device-tag", pdf);
 
     const browser = await chromium.launch({
       executablePath: CHROMIUM,

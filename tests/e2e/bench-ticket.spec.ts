@@ -10,12 +10,10 @@
  */
 import path from "node:path";
 import Database from "better-sqlite3";
-import { PNG } from "pngjs";
 import { chromium, expect, test, type Page } from "@playwright/test";
 import bwipjs from "bwip-js/node";
 import { CHROMIUM_ARGS, E2E_PORT } from "../../playwright.config";
-import { renderPdfPage } from "../fixtures/barcode";
-import { CLIP_DIR, centreOnWhite, writeY4m } from "../fixtures/y4m";
+import { demoChainSaw, labelClip } from "../fixtures/printed-tag";
 import { DEMO, signInAs } from "./pages/sign-in";
 import { RECORD_CAMERA_AND_VIBRATION } from "./pages/scan";
 import { deviceTickets, goOffline, outboxCount, waitForServiceWorker } from "./pages/pwa";
@@ -30,23 +28,6 @@ test.use({ actionTimeout: 15_000 });
 
 function serverDb() {
   return new Database(path.join(DATA_DIR, "benchwright.sqlite"), { readonly: true, fileMustExist: true });
-}
-
-/** The demo shop's chain saw on the bench for the tech (invented demo data): its ticket id and tag code. */
-function demoChainSaw(): { id: string; tagCode: string; number: number } {
-  const db = serverDb();
-  try {
-    const row = db
-      .prepare(
-        `SELECT t.id, t.tag_code AS tagCode, t.number FROM tickets t JOIN machines m ON m.id = t.machine_id JOIN users u ON u.id = t.assigned_tech_id
-         WHERE m.kind = 'chain_saw' AND t.status = 'on_bench' AND u.email = ? ORDER BY t.number LIMIT 1`,
-      )
-      .get(DEMO.tech) as { id: string; tagCode: string; number: number } | undefined;
-    if (!row) throw new Error("the demo shop has no chain saw on the bench for the tech");
-    return row;
-  } finally {
-    db.close();
-  }
 }
 
 const step = (page: Page, id: string) => page.locator(`[data-step="${id}"]`);
@@ -69,7 +50,7 @@ async function expectBigTargets(page: Page) {
 let onFailure: () => Promise<void> = async () => undefined;
 
 test("a chain-saw diagnosis recorded offline on the phone reaches the server after sync", async ({ browser }) => {
-  const saw = demoChainSaw();
+  const saw = demoChainSaw(DATA_DIR, DEMO.tech);
 
   // The printed tag: the counter's 4×2 in label PDF at 150 dpi (600×300 px), centred in a 640×480 camera frame.
   const counter = await browser.newContext({ baseURL: BASE_URL });
@@ -77,9 +58,7 @@ test("a chain-saw diagnosis recorded offline on the phone reaches the server aft
   await signInAs(cp, DEMO.counter);
   const pdf = await (await cp.request.get(`/api/labels/tickets/${saw.id}?layout=label-4x2`)).body();
   await counter.close();
-  const png = PNG.sync.read(renderPdfPage(pdf, { dpi: 150 }));
-  const clip = path.join(CLIP_DIR, "printed-chain-saw-tag.y4m");
-  writeY4m(clip, centreOnWhite({ width: png.width, height: png.height, data: png.data }));
+  const clip = labelClip("printed-chain-saw-tag", pdf);
 
   const camBrowser = await chromium.launch({
     executablePath: CHROMIUM,

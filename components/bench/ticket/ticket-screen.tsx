@@ -109,7 +109,8 @@ export function TicketScreen() {
     [data],
   );
 
-  if (id === undefined) {
+  // Before hydration, and while the phone's store is read.
+  if (id === undefined || data === undefined) {
     return (
       <BenchShell title="Ticket">
         <p className="text-lg" role="status">
@@ -124,15 +125,6 @@ export function TicketScreen() {
         <Notice tone="bad" title="No ticket chosen">
           Open a ticket from today&apos;s work or scan its tag.
         </Notice>
-      </BenchShell>
-    );
-  }
-  if (data === undefined) {
-    return (
-      <BenchShell title="Ticket">
-        <p className="text-lg" role="status">
-          Opening the ticket…
-        </p>
       </BenchShell>
     );
   }
