@@ -1,5 +1,6 @@
 "use client";
 
+import { AlertText } from "@/components/ui/alert-text";
 import { useId, useState } from "react";
 import { Camera, LoaderCircle } from "lucide-react";
 import { preparePhoto, type PreparedPhoto } from "@/lib/bench/photo";
@@ -55,11 +56,7 @@ export function PhotoButton({
           else setError(r.message);
         }}
       />
-      {error ? (
-        <p role="alert" className="font-semibold text-bad">
-          {error}
-        </p>
-      ) : null}
+      <AlertText message={error} />
     </div>
   );
 }

@@ -15,17 +15,16 @@
  * Targets: tap-to-saved p95 ≤ 16 ms; scan-to-open median ≤ 700 ms. The last line printed is one JSON object.
  * BENCH_STRICT=1 exits 1 when a target is missed. Port: BENCH_DEVICE_PORT (default 3403).
  */
-import { chromium, type Page } from "@playwright/test";
+import type { Page } from "@playwright/test";
 import { buildIfNeeded } from "../../scripts/lib/build";
-import { CHROMIUM_ARGS } from "../../playwright.config";
 import { demoChainSaw, labelClip } from "../fixtures/printed-tag";
+import { launchWithFakeCamera } from "../fixtures/fake-camera";
 import { LOGINS, median, percentile, sessionCookie, startServer, stopServer } from "./lib/server";
 
 process.env.NEXT_TELEMETRY_DISABLED = "1";
 const PORT = Number(process.env.BENCH_DEVICE_PORT || 3403);
 const BASE = `http://localhost:${PORT}`;
 const DATA_DIR = "tests/.tmp/bench-device-data";
-const CHROMIUM = process.env.CHROMIUM_PATH || "/usr/bin/chromium";
 const TAPS = 200;
 /** Between taps: a tech reads the next step before tapping (BENCH_TAP_PAUSE_MS; 0 taps as fast as the screen updates). */
 const PAUSE_MS = Number(process.env.BENCH_TAP_PAUSE_MS ?? 300);
@@ -220,15 +219,8 @@ async function main() {
     const pdf = new Uint8Array(await (await fetch(`${BASE}/api/labels/tickets/${saw.id}?layout=label-4x2`, { headers: { cookie: `${cookie.name}=${cookie.value}` } })).arrayBuffer());
     const clip = labelClip("bench-device-tag", pdf);
 
-    const browser = await chromium.launch({
-      executablePath: CHROMIUM,
-      args: [...CHROMIUM_ARGS, "--use-fake-ui-for-media-stream", "--use-fake-device-for-media-stream", `--use-file-for-fake-video-capture=${clip}`],
-    });
+    const { browser, page } = await launchWithFakeCamera(clip, BASE, () => localStorage.setItem("benchwright.testHooks", "1"));
     try {
-      const context = await browser.newContext({ baseURL: BASE, viewport: { width: 390, height: 844 }, hasTouch: true });
-      await context.grantPermissions(["camera"], { origin: BASE });
-      await context.addInitScript(() => localStorage.setItem("benchwright.testHooks", "1"));
-      const page = await context.newPage();
       await signIn(page);
       await waitForTicketOnPhone(page, saw.id);
 

@@ -10,16 +10,16 @@
  */
 import path from "node:path";
 import Database from "better-sqlite3";
-import { chromium, expect, test, type Page } from "@playwright/test";
+import { expect, test, type Page } from "@playwright/test";
 import bwipjs from "bwip-js/node";
-import { CHROMIUM_ARGS, E2E_PORT } from "../../playwright.config";
+import { E2E_PORT } from "../../playwright.config";
 import { demoChainSaw, labelClip } from "../fixtures/printed-tag";
+import { launchWithFakeCamera } from "../fixtures/fake-camera";
 import { DEMO, signInAs } from "./pages/sign-in";
 import { RECORD_CAMERA_AND_VIBRATION } from "./pages/scan";
 import { deviceTickets, goOffline, outboxCount, waitForServiceWorker } from "./pages/pwa";
 
 const BASE_URL = `http://localhost:${E2E_PORT}`;
-const CHROMIUM = process.env.CHROMIUM_PATH || "/usr/bin/chromium";
 const DATA_DIR = path.resolve("tests/.tmp/e2e-data");
 const SHOTS = process.env.SCREENSHOTS ? "tests/.tmp/screens" : null;
 
@@ -60,15 +60,8 @@ test("a chain-saw diagnosis recorded offline on the phone reaches the server aft
   await counter.close();
   const clip = labelClip("printed-chain-saw-tag", pdf);
 
-  const camBrowser = await chromium.launch({
-    executablePath: CHROMIUM,
-    args: [...CHROMIUM_ARGS, "--use-fake-ui-for-media-stream", "--use-fake-device-for-media-stream", `--use-file-for-fake-video-capture=${clip}`],
-  });
+  const { browser: camBrowser, context, page } = await launchWithFakeCamera(clip, BASE_URL, RECORD_CAMERA_AND_VIBRATION);
   try {
-    const context = await camBrowser.newContext({ baseURL: BASE_URL, viewport: { width: 390, height: 844 }, hasTouch: true });
-    await context.grantPermissions(["camera"], { origin: BASE_URL });
-    await context.addInitScript(RECORD_CAMERA_AND_VIBRATION);
-    const page = await context.newPage();
     page.on("pageerror", (e) => console.log(`[page error] ${e.message}`));
     onFailure = async () => {
       await page.screenshot({ path: test.info().outputPath("phone.png") });

@@ -1,5 +1,6 @@
 "use client";
 
+import { AlertText } from "@/components/ui/alert-text";
 import { useEffect, useRef, useState } from "react";
 import { Plus, Trash2, Undo2, X } from "lucide-react";
 import { ChoiceChips } from "../choice-chips";
@@ -228,11 +229,7 @@ export function FindingForm({
           <Plus aria-hidden size={20} /> Offer another way (e.g. replace the assembly)
         </button>
       )}
-      {message ? (
-        <p role="alert" className="rounded-xl border-l-8 border-bad bg-bad-soft px-3 py-2 font-semibold">
-          {message}
-        </p>
-      ) : null}
+      <AlertText message={message} boxed />
       <div className="sticky bottom-[4.5rem] z-[5] -mx-4 flex gap-3 border-t-2 border-line bg-surface px-4 py-3">
         <button type="button" disabled={busy} onClick={() => void submit()} className="tap-bench flex-1 rounded-2xl bg-accent px-5 text-lg font-bold text-accent-ink disabled:opacity-50">
           Save finding
@@ -270,11 +267,7 @@ export function FindingsList({
   };
   return (
     <div className="flex flex-col gap-3">
-      {error ? (
-        <p role="alert" className="font-semibold text-bad">
-          {error}
-        </p>
-      ) : null}
+      <AlertText message={error} />
       {sorted.map((f) => {
         const own = photos.filter((p) => p.findingId === f.id || f.photoIds.includes(p.id));
         return (

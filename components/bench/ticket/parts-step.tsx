@@ -1,5 +1,6 @@
 "use client";
 
+import { AlertText } from "@/components/ui/alert-text";
 import { useState } from "react";
 import { Minus, Plus, X } from "lucide-react";
 import { ChoiceChips } from "../choice-chips";
@@ -87,11 +88,7 @@ export function PartsStepInput({
           </button>
         </div>
       ) : null}
-      {local || error ? (
-        <p role="alert" className="font-semibold text-bad">
-          {local ?? error}
-        </p>
-      ) : null}
+      <AlertText message={local ?? error} />
       {value.items.length ? (
         <ul className="flex flex-col gap-2" aria-label="Parts replaced">
           {value.items.map((i, n) => (

@@ -1,5 +1,6 @@
 "use client";
 
+import { AlertText } from "@/components/ui/alert-text";
 import { useEffect, useState } from "react";
 import { Pause, Play } from "lucide-react";
 import { ChoiceChips } from "../choice-chips";
@@ -40,11 +41,7 @@ export function LaborTimer({ ticketId, rows, userId, save, disabled }: { ticketI
         <p className="text-sm text-ink-2" data-testid="labor-minutes">
           {total.minutes} min on this ticket
         </p>
-        {error ? (
-          <p role="alert" className="font-semibold text-bad">
-            {error}
-          </p>
-        ) : null}
+        <AlertText message={error} />
       </div>
       {total.running ? (
         <button
@@ -126,11 +123,7 @@ export function TicketNotes({ ticketId, notes, save, disabled, waiting }: { tick
         Add a note
       </label>
       <textarea id="ticket-note" rows={3} maxLength={4000} value={text} onChange={(e) => setText(e.target.value)} className="rounded-2xl border-2 border-line bg-surface px-4 py-3 text-lg" />
-      {error ? (
-        <p role="alert" className="font-semibold text-bad">
-          {error}
-        </p>
-      ) : null}
+      <AlertText message={error} />
       <button
         type="button"
         disabled={disabled || text.trim() === ""}

@@ -1,5 +1,6 @@
 "use client";
 
+import { AlertText } from "@/components/ui/alert-text";
 import { useState } from "react";
 import { Undo2 } from "lucide-react";
 import { TuneButtons } from "../tune-buttons";
@@ -103,11 +104,7 @@ export function TunePanel({
           }}
         />
       ) : null}
-      {error ? (
-        <p role="alert" className="rounded-xl border-l-8 border-bad bg-bad-soft px-3 py-2 font-semibold">
-          {error}
-        </p>
-      ) : null}
+      <AlertText message={error} boxed />
       {log.problem ? (
         <p role="status" className="rounded-xl border-l-8 border-warning bg-surface-2 px-3 py-2 font-semibold">
           The log from more than one phone does not add up: {log.problem}
