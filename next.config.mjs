@@ -54,4 +54,31 @@ const nextConfig = {
   },
 };
 
-export default withSerwist(nextConfig);
+/**
+ * @serwist/next always adds its window-side entry (the Serwist window class, ~12 kB gzipped) to every page's
+ * first load, even with `register: false`. The app registers the worker itself (components/pwa/pwa-store.ts)
+ * and never uses `window.serwist`, so the entry is taken out again.
+ * @param {import('next').NextConfig} config
+ * @returns {import('next').NextConfig}
+ */
+function withoutSerwistWindowEntry(config) {
+  const inner = config.webpack;
+  return {
+    ...config,
+    webpack(webpackConfig, options) {
+      const out = inner ? inner(webpackConfig, options) : webpackConfig;
+      const entry = out.entry;
+      out.entry = async () => {
+        const entries = await (typeof entry === "function" ? entry() : entry);
+        for (const name of ["main.js", "main-app"]) {
+          const list = entries[name];
+          if (Array.isArray(list)) entries[name] = list.filter((file) => !/[\\/]@serwist[\\/]next[\\/]dist[\\/]sw-entry\.mjs$/.test(String(file)));
+        }
+        return entries;
+      };
+      return out;
+    },
+  };
+}
+
+export default withoutSerwistWindowEntry(withSerwist(nextConfig));

@@ -6,8 +6,7 @@ import { buttonClass } from "@/components/ui/button";
 import { SyncBadge } from "@/components/sync/sync-badge";
 import { AskPersistentStorage } from "@/components/pwa/ask-persistent-storage";
 import { useDeviceSession } from "@/components/sync/use-device-session";
-import { useSyncStatus } from "@/components/sync/use-sync";
-import type { SyncStatus } from "@/lib/sync/read";
+import { useLiveSync, useSyncStatus } from "@/components/sync/use-sync";
 import { TodayList } from "./today-list";
 
 /**
@@ -15,12 +14,15 @@ import { TodayList } from "./today-list";
  * ticket screen. It renders from what the device holds (the person who signed in is kept in
  * the device store), never from a server-side session check, so the page also opens with no network.
  */
-/** Changes whenever a sync or a recorded change touched the device store. */
-const storeKey = (s: SyncStatus | undefined) => (s ? `${s.tickets}:${s.waiting}:${s.lastSyncAt ?? ""}:${s.cursor}` : "");
 
 export function BenchHome() {
   const session = useDeviceSession();
   const status = useSyncStatus();
+  const live = useLiveSync();
+  // Never synced, no error yet and online: the first sync is on its way (it starts once the screen is drawn).
+  // ("Not signed in" is what a round found before this phone knew who signed in: not a reason to stop waiting.)
+  const fetching =
+    live.running || (status !== undefined && !status.lastSyncAt && (!status.lastError || status.lastError.code === "not_signed_in") && live.online);
 
   return (
     <BenchShell title="Today's work" status={session.kind === "signed-out" ? undefined : <SyncBadge />}>
@@ -62,7 +64,7 @@ export function BenchHome() {
               </a>
             </Notice>
           ) : null}
-          <TodayList synced={Boolean(status?.lastSyncAt)} storeKey={storeKey(status)} />
+          <TodayList fetching={fetching} />
         </div>
       )}
     </BenchShell>

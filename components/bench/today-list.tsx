@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useLiveQuery } from "dexie-react-hooks";
 import { ScanLine, Search, X } from "lucide-react";
 import { ticketsForToday, type TicketCard } from "@/lib/sync/read";
+import { deviceDb, readSyncState } from "@/lib/sync/device-db";
 import { filterToday, groupToday, localIsoDate } from "@/lib/bench/today";
 import { Notice } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
@@ -15,15 +16,29 @@ import { TodayCard } from "./today-card";
  * The tech's list for today, read from the device store only (so it works with no network): a search on top,
  * "Assigned to you" first, then every other open ticket, and the scan action below the list (thumb reach).
  */
-export function TodayList({ synced, storeKey }: { synced: boolean; storeKey: string }) {
-  // Live on its own; `storeKey` (the sync status's counts and times, which stay live in every case seen) also makes
-  // it read again after each sync: a first sync on a fresh phone was seen not to wake this query in Chromium.
-  const cards = useLiveQuery(() => ticketsForToday(), [storeKey]);
+export function TodayList({ fetching }: { fetching: boolean }) {
+  // One read for the list and "synced yet": the sync state first, so a phone that says it has synced also shows
+  // what that sync brought (a pull's rows are committed before its "last synced" time is written).
+  const data = useLiveQuery(async () => {
+    const { lastSyncAt } = await readSyncState(deviceDb());
+    return { synced: Boolean(lastSyncAt), cards: await ticketsForToday() };
+  }, []);
+  const cards = data?.cards;
+  const synced = data?.synced ?? false;
   const [query, setQuery] = useState("");
   const today = localIsoDate(new Date(useNow(60_000)));
   const searchId = useId();
 
   if (cards === undefined) return <p className="text-lg text-muted">Loading today&apos;s work…</p>;
+
+  if (cards.length === 0 && fetching && !synced) {
+    // A phone's first sync: say so quietly rather than "no tickets" for the second before they arrive.
+    return (
+      <p className="text-lg text-muted" role="status">
+        Fetching today&apos;s work from the shop…
+      </p>
+    );
+  }
 
   if (cards.length === 0) {
     return (

@@ -59,6 +59,8 @@ export function SyncBadge() {
   return (
     <Link
       href="/bench/sync"
+      // The service worker answers from the phone's own copy; a prefetch would only cost the first load.
+      prefetch={false}
       data-testid="sync-badge"
       data-state={live.running ? "syncing" : offline ? "offline" : waiting ? "waiting" : status?.lastSyncAt ? "synced" : "never"}
       data-last-sync={status?.lastSyncAt ?? ""}

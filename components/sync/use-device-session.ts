@@ -4,7 +4,7 @@ import { useEffect, useState } from "react";
 import { useLiveQuery } from "dexie-react-hooks";
 import { deviceDb, readDeviceUser, updateSyncState, getDeviceDb, type DeviceUser } from "@/lib/sync/device-db";
 import { adoptSignedInUser, type SignedInUser } from "@/lib/sync/session";
-import { requestSync } from "@/lib/sync/scheduler";
+import { requestSyncWhenIdle } from "@/lib/sync/scheduler";
 
 export type DeviceSession =
   | { kind: "loading" }
@@ -52,7 +52,7 @@ export function useDeviceSession(): DeviceSession {
         setBlocked({ kind: "blocked", previous: result.previous, current: user, waiting: result.waiting, needsAttention: result.needsAttention });
       } else {
         setChecked("ok");
-        void requestSync();
+        requestSyncWhenIdle();
       }
     })();
     return () => {

@@ -16,7 +16,6 @@ import type {
   TicketRow,
   TuneEntryRow,
 } from "./protocol";
-import { MUTATION_ENTITY } from "./protocol";
 import { deviceDb, readDeviceUser, readSyncState, type AttentionEntry, type DeviceDb, type DeviceUser, type OutboxEntry, type SyncState } from "./device-db";
 
 const pick = (db?: DeviceDb) => db ?? deviceDb();
@@ -136,13 +135,6 @@ export async function notesFor(ticketId: string, db?: DeviceDb): Promise<TicketN
 
 export async function partsFor(ticketId: string, db?: DeviceDb): Promise<PartUsedRow[]> {
   return (await pick(db).partsUsed.where("ticketId").equals(ticketId).toArray()).sort(byTime);
-}
-
-/** "entity:id" of every row with a change still waiting to go out (to mark rows "not synced yet"). */
-export async function waitingRowKeys(db?: DeviceDb): Promise<Set<string>> {
-  const keys = new Set<string>();
-  await pick(db).outbox.each((e) => keys.add(`${MUTATION_ENTITY[e.name]}:${e.entityId}`));
-  return keys;
 }
 
 /** Ids of the rows with a change still waiting to go out (row ids are UUIDs, unique across tables). Keys only. */

@@ -2,7 +2,8 @@
  * npm run bench:web — the web budgets (issue 7). Not a test: figures for the README and the report.
  *
  * 1. JavaScript each main route loads on a first visit, gzipped (zlib level 9, as `next build` used to print it),
- *    measured in Chromium with the service worker blocked and an empty cache.
+ *    measured in Chromium with the service worker blocked and an empty cache. The page's own scripts are the
+ *    route's figure; what the sync worker loads (its own thread) is printed and reported beside it.
  * 2. Lighthouse 12.2.3 (its CLI, mobile settings) on /sign-in and the signed-in /bench, median of 3 runs, each in a
  *    fresh Chrome; the session cookie goes in as an extra header and is redacted in the kept reports.
  *
@@ -27,6 +28,8 @@ const BASE = `http://localhost:${PORT}`;
 const CHROMIUM = process.env.CHROMIUM_PATH || "/usr/bin/chromium";
 const RUNS = Number(process.env.LIGHTHOUSE_RUNS || 3);
 const OUT = path.resolve("bench-results");
+/** BENCH_WEB_DETAIL=/bench,/sign-in lists every script those routes load, largest first. */
+const DETAIL = new Set((process.env.BENCH_WEB_DETAIL ?? "").split(",").filter(Boolean));
 
 
 /** Main routes and who opens them. */
@@ -59,8 +62,14 @@ async function routeScripts(browser: Browser, route: string, cookie?: { name: st
   if (cookie) await context.addCookies([{ ...cookie, url: BASE }]);
   const page = await context.newPage();
   const scripts = new Map<string, Promise<Buffer | null>>();
-  page.on("response", (res) => {
-    if (res.request().resourceType() !== "script" || scripts.has(res.url())) return;
+  // The sync worker's own script is a "script"; the chunks it pulls in with importScripts() are "other".
+  const workerUrls = new Set<string>();
+  page.on("worker", (w) => workerUrls.add(w.url()));
+  context.on("response", (res) => {
+    const type = res.request().resourceType();
+    const isJs = type === "script" || (type === "other" && /\.js(\?|$)/.test(new URL(res.url()).pathname));
+    if (!isJs || scripts.has(res.url())) return;
+    if (type === "other") workerUrls.add(res.url());
     scripts.set(res.url(), res.body().catch(() => null));
   });
   const res = await page.goto(`${BASE}${route}`, { waitUntil: "load" });
@@ -72,17 +81,27 @@ async function routeScripts(browser: Browser, route: string, cookie?: { name: st
   const finalPath = new URL(page.url()).pathname;
   let gz = 0;
   let initialGz = 0;
+  let workerGz = 0;
   let raw = 0;
+  let count = 0;
+  const each: { path: string; gzKb: number; where: "in HTML" | "imported" | "worker" }[] = [];
   for (const [url, pending] of scripts) {
     const body = await pending;
     if (!body) continue;
     const size = zlib.gzipSync(body, { level: 9 }).length;
+    const where = workerUrls.has(url) ? "worker" : html.includes(new URL(url).pathname) ? "in HTML" : "imported";
+    each.push({ path: new URL(url).pathname, gzKb: size / 1000, where });
+    if (where === "worker") {
+      workerGz += size;
+      continue;
+    }
     raw += body.length;
     gz += size;
-    if (html.includes(new URL(url).pathname)) initialGz += size;
+    count += 1;
+    if (where === "in HTML") initialGz += size;
   }
   await context.close();
-  return { status, finalPath, count: scripts.size, rawKb: raw / 1000, gzKb: gz / 1000, initialGzKb: initialGz / 1000 };
+  return { status, finalPath, count, rawKb: raw / 1000, gzKb: gz / 1000, initialGzKb: initialGz / 1000, workerGzKb: workerGz / 1000, each };
 }
 
 interface Scores {
@@ -148,6 +167,7 @@ async function main() {
     // 1. JavaScript per route.
     const browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
     const routesGzipKb: Record<string, number> = {};
+    const workerGzipKb: Record<string, number> = {};
     log("JavaScript loaded on a first visit (service worker blocked), gzip -9:");
     for (const r of ROUTES) {
       const m = await routeScripts(browser, r.path, r.as ? cookies[r.as] : undefined);
@@ -156,10 +176,15 @@ async function main() {
         continue;
       }
       routesGzipKb[r.path] = Math.round(m.gzKb * 10) / 10;
+      if (m.workerGzKb) workerGzipKb[r.path] = Math.round(m.workerGzKb * 10) / 10;
       log(
         `  ${r.path.padEnd(16)} ${m.gzKb.toFixed(1).padStart(6)} kB gz  (named in the HTML ${m.initialGzKb.toFixed(1)} kB; ` +
-          `${m.rawKb.toFixed(0)} kB raw, ${m.count} scripts)`,
+          `${m.rawKb.toFixed(0)} kB raw, ${m.count} scripts)` +
+          (m.workerGzKb ? ` + sync worker ${m.workerGzKb.toFixed(1)} kB gz (its own thread, loaded once the screen is drawn)` : ""),
       );
+      if (DETAIL.has(r.path)) {
+        for (const e of m.each.sort((a, b) => b.gzKb - a.gzKb)) log(`      ${e.gzKb.toFixed(1).padStart(6)} kB  ${e.where.padEnd(8)}  ${e.path}`);
+      }
     }
     await browser.close();
 
@@ -167,7 +192,8 @@ async function main() {
     const techCookie = `${cookies.tech!.name}=${cookies.tech!.value}`;
     const audits: { route: string; cookie?: string }[] = [{ route: "/sign-in" }, { route: "/bench", cookie: techCookie }];
     const lighthouseScores: Record<string, Scores> = {};
-    for (const a of audits) {
+    // LIGHTHOUSE_RUNS=0: the script sizes only.
+    for (const a of RUNS > 0 ? audits : []) {
       const runs: { scores: Scores; report: string }[] = [];
       for (let i = 0; i < RUNS; i++) {
         const run = lighthouseRun(`${BASE}${a.route}`, a.cookie);
@@ -198,7 +224,7 @@ async function main() {
       }
     }
     log(misses.length ? `budgets missed: ${misses.join("; ")}` : "all budgets met");
-    console.log(JSON.stringify({ routes_gzip_kb: routesGzipKb, lighthouse: lighthouseScores }));
+    console.log(JSON.stringify({ routes_gzip_kb: routesGzipKb, sync_worker_gzip_kb: workerGzipKb, lighthouse: lighthouseScores }));
     if (misses.length && process.env.BENCH_STRICT === "1") process.exitCode = 1;
   } finally {
     stop();

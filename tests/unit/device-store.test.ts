@@ -4,7 +4,7 @@ import { DeviceDb, DEVICE_SCHEMA_VERSIONS, pendingChangeCount, readIdentity, rea
 import { record, RecordError, retryAttention, dismissAttention } from "@/lib/sync/record";
 import { adoptSignedInUser, markSignedOut } from "@/lib/sync/session";
 import { applyServerChanges } from "@/lib/sync/effects";
-import { benchEntriesFor, ticketsForToday, ticketByTag, photosFor, syncStatus, waitingRowKeys } from "@/lib/sync/read";
+import { benchEntriesFor, ticketsForToday, ticketByTag, photosFor, syncStatus, waitingRowIds } from "@/lib/sync/read";
 import type { TicketRow } from "@/lib/sync/protocol";
 
 /**
@@ -156,7 +156,7 @@ describe("reads for the bench screens", () => {
     expect(Object.keys(sheet.latest)).toEqual(["compression"]);
     expect(sheet.latest.compression!.id).toBe(second.id);
     expect(sheet.history.map((h) => h.id)).toEqual([first.id, second.id, plug.id]);
-    expect(await waitingRowKeys(db)).toEqual(new Set([`bench_entry:${first.id}`, `bench_entry:${second.id}`, `bench_entry:${plug.id}`]));
+    expect(await waitingRowIds(db)).toEqual(new Set([first.id, second.id, plug.id]));
   });
 
   it("lists today's work with the tech's own tickets first, and finds a ticket by its tag in any case", async () => {
