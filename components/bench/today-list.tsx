@@ -16,13 +16,15 @@ import { TodayCard } from "./today-card";
  * The tech's list for today, read from the device store only (so it works with no network): a search on top,
  * "Assigned to you" first, then every other open ticket, and the scan action below the list (thumb reach).
  */
-export function TodayList({ fetching }: { fetching: boolean }) {
+export function TodayList({ fetching, storeKey }: { fetching: boolean; storeKey: string }) {
   // One read for the list and "synced yet": the sync state first, so a phone that says it has synced also shows
   // what that sync brought (a pull's rows are committed before its "last synced" time is written).
+  // Live on its own; `storeKey` (the sync status's counts and times, which stay live in every case seen) also makes
+  // it read again after each change: this query was seen not to wake after a first sync or a recorded change.
   const data = useLiveQuery(async () => {
     const { lastSyncAt } = await readSyncState(deviceDb());
     return { synced: Boolean(lastSyncAt), cards: await ticketsForToday() };
-  }, []);
+  }, [storeKey]);
   const cards = data?.cards;
   const synced = data?.synced ?? false;
   const [query, setQuery] = useState("");
