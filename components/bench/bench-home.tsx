@@ -7,7 +7,6 @@ import { SyncBadge } from "@/components/sync/sync-badge";
 import { AskPersistentStorage } from "@/components/pwa/ask-persistent-storage";
 import { useDeviceSession } from "@/components/sync/use-device-session";
 import { useLiveSync, useSyncStatus } from "@/components/sync/use-sync";
-import type { SyncStatus } from "@/lib/sync/read";
 import { TodayList } from "./today-list";
 
 /**
@@ -15,9 +14,6 @@ import { TodayList } from "./today-list";
  * ticket screen. It renders from what the device holds (the person who signed in is kept in
  * the device store), never from a server-side session check, so the page also opens with no network.
  */
-
-/** Changes whenever a sync or a recorded change touched the device store. */
-const storeKey = (s: SyncStatus | undefined) => (s ? `${s.tickets}:${s.waiting}:${s.lastSyncAt ?? ""}:${s.cursor}` : "");
 
 export function BenchHome() {
   const session = useDeviceSession();
@@ -68,7 +64,7 @@ export function BenchHome() {
               </a>
             </Notice>
           ) : null}
-          <TodayList fetching={fetching} storeKey={storeKey(status)} />
+          <TodayList fetching={fetching} />
         </div>
       )}
     </BenchShell>

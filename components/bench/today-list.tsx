@@ -2,29 +2,21 @@
 
 import { useId, useState } from "react";
 import Link from "next/link";
-import { useLiveQuery } from "dexie-react-hooks";
 import { ScanLine, Search, X } from "lucide-react";
-import { ticketsForToday, type TicketCard } from "@/lib/sync/read";
-import { deviceDb, readSyncState } from "@/lib/sync/device-db";
+import type { TicketCard } from "@/lib/sync/read";
 import { filterToday, groupToday, localIsoDate } from "@/lib/bench/today";
 import { Notice } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
-import { useNow } from "@/components/sync/use-sync";
+import { useNow, useWatched } from "@/components/sync/use-sync";
 import { TodayCard } from "./today-card";
 
 /**
  * The tech's list for today, read from the device store only (so it works with no network): a search on top,
  * "Assigned to you" first, then every other open ticket, and the scan action below the list (thumb reach).
  */
-export function TodayList({ fetching, storeKey }: { fetching: boolean; storeKey: string }) {
-  // One read for the list and "synced yet": the sync state first, so a phone that says it has synced also shows
-  // what that sync brought (a pull's rows are committed before its "last synced" time is written).
-  // Live on its own; `storeKey` (the sync status's counts and times, which stay live in every case seen) also makes
-  // it read again after each change: this query was seen not to wake after a first sync or a recorded change.
-  const data = useLiveQuery(async () => {
-    const { lastSyncAt } = await readSyncState(deviceDb());
-    return { synced: Boolean(lastSyncAt), cards: await ticketsForToday() };
-  }, [storeKey]);
+export function TodayList({ fetching }: { fetching: boolean }) {
+  // Sent by the device host after every change on the phone (lib/sync/watched.ts: "synced yet" read first).
+  const data = useWatched("today");
   const cards = data?.cards;
   const synced = data?.synced ?? false;
   const [query, setQuery] = useState("");

@@ -1,10 +1,11 @@
 "use client";
 
 import { useEffect, useState } from "react";
-import { useLiveQuery } from "dexie-react-hooks";
-import { deviceDb, readDeviceUser, updateSyncState, getDeviceDb, type DeviceUser } from "@/lib/sync/device-db";
-import { adoptSignedInUser, type SignedInUser } from "@/lib/sync/session";
+import type { DeviceUser } from "@/lib/sync/device-db";
+import type { SignedInUser } from "@/lib/sync/session";
+import { deviceCall } from "@/lib/sync/device-client";
 import { requestSyncWhenIdle } from "@/lib/sync/scheduler";
+import { useWatched } from "./use-sync";
 
 export type DeviceSession =
   | { kind: "loading" }
@@ -20,7 +21,7 @@ export type DeviceSession =
  * warning while the previous person's changes wait.
  */
 export function useDeviceSession(): DeviceSession {
-  const stored = useLiveQuery(() => readDeviceUser(deviceDb()), [], "loading" as const);
+  const stored = useWatched("deviceUser") ?? ("loading" as const);
   const [checked, setChecked] = useState<null | "ok" | "no-session" | "offline">(null);
   const [blocked, setBlocked] = useState<Extract<DeviceSession, { kind: "blocked" }> | null>(null);
 
@@ -34,10 +35,9 @@ export function useDeviceSession(): DeviceSession {
         if (live) setChecked("offline");
         return;
       }
-      const db = await getDeviceDb();
       if (res.status === 401) {
         // The session ended: keep everything; the badge asks the tech to sign in again.
-        if (await readDeviceUser(db)) await updateSyncState(db, { sessionExpired: true });
+        await deviceCall({ type: "session-ended" });
         if (live) setChecked("no-session");
         return;
       }
@@ -46,7 +46,7 @@ export function useDeviceSession(): DeviceSession {
         return;
       }
       const { user } = (await res.json()) as { user: SignedInUser };
-      const result = await adoptSignedInUser(user, { db });
+      const result = await deviceCall({ type: "adopt", user });
       if (!live) return;
       if (result.status === "blocked") {
         setBlocked({ kind: "blocked", previous: result.previous, current: user, waiting: result.waiting, needsAttention: result.needsAttention });

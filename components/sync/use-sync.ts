@@ -1,8 +1,9 @@
 "use client";
 
-import { useEffect, useState, useSyncExternalStore } from "react";
-import { useLiveQuery } from "dexie-react-hooks";
-import { syncStatus, type SyncStatus } from "@/lib/sync/read";
+import { useCallback, useEffect, useState, useSyncExternalStore } from "react";
+import type { SyncStatus } from "@/lib/sync/read";
+import { subscribeWatched, watchedValue } from "@/lib/sync/device-client";
+import type { WatchName, WatchValue } from "@/lib/sync/watched";
 import { getServerSnapshot, getSnapshot, startSyncScheduler, subscribe, type LiveSyncState } from "@/lib/sync/scheduler";
 
 /** Online / running / progress, live; starts the sync triggers on first use. */
@@ -13,9 +14,15 @@ export function useLiveSync(): LiveSyncState {
   return useSyncExternalStore(subscribe, getSnapshot, getServerSnapshot);
 }
 
+/** A watched read of the device store (lib/sync/watched.ts), live; undefined until its first answer. */
+export function useWatched<N extends WatchName>(name: N): WatchValue<N> | undefined {
+  const sub = useCallback((listener: () => void) => subscribeWatched(name, listener), [name]);
+  return useSyncExternalStore(sub, () => watchedValue(name), () => undefined);
+}
+
 /** What the device store says about sync (waiting, needs attention, last sync, errors), live. */
 export function useSyncStatus(): SyncStatus | undefined {
-  return useLiveQuery(() => syncStatus(), []);
+  return useWatched("syncStatus");
 }
 
 /** The current time, refreshed every `ms` (for "5 min ago"). */

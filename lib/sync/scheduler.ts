@@ -7,9 +7,8 @@
  * The live state (online, running, progress) is kept in memory for `useSyncExternalStore`; what
  * must survive a reload (cursor, last sync, errors) is in the device store.
  */
-import { getDeviceDb } from "./device-db";
+import { deviceCall } from "./device-client";
 import type { SyncProgress, SyncResult } from "./engine";
-import type { SyncWorkerReply } from "./sync-worker-messages";
 
 export interface LiveSyncState {
   online: boolean;
@@ -43,67 +42,11 @@ export const getSnapshot = (): LiveSyncState => state;
 const SERVER_STATE: LiveSyncState = { online: true, running: false, progress: null, last: null };
 export const getServerSnapshot = (): LiveSyncState => SERVER_STATE;
 
-// ---- where a round runs: the sync worker, or this page where there is none ---------------------------------
-
-type Pending = { resolve: (r: SyncResult | null) => void; reject: (e: Error) => void };
-/** undefined: not started yet; null: no worker here (or it failed to start), rounds run in the page. */
-let worker: Worker | null | undefined;
-let nextRoundId = 1;
-const rounds = new Map<number, Pending>();
-
-function syncWorker(): Worker | null {
-  if (worker !== undefined) return worker;
-  worker = null;
-  try {
-    // For a comparison in benchmarks: localStorage "benchwright.syncInPage" = "1" keeps rounds in the page.
-    if (typeof Worker === "undefined" || localStorage.getItem("benchwright.syncInPage") === "1") return null;
-    const w = new Worker(new URL("./sync-worker.ts", import.meta.url), { name: "benchwright-sync" });
-    w.onmessage = (event: MessageEvent<SyncWorkerReply>) => {
-      const m = event.data;
-      if (m.type === "ready") return;
-      const round = rounds.get(m.id);
-      if (!round) return;
-      if (m.type === "progress") return set({ progress: m.progress });
-      rounds.delete(m.id);
-      if (m.type === "done") round.resolve(m.result);
-      else round.reject(new Error(`sync worker: ${m.message}`));
-    };
-    w.onerror = (event) => {
-      // The worker's script did not load or start: this round and later ones run in the page instead.
-      event.preventDefault();
-      w.terminate();
-      worker = null;
-      for (const [, round] of rounds) round.resolve(null);
-      rounds.clear();
-    };
-    worker = w;
-  } catch {
-    worker = null;
-  }
-  return worker;
-}
-
-/** One round in the worker; null when there is no worker to run it. */
-function runInWorker(): Promise<SyncResult | null> {
-  const w = syncWorker();
-  if (!w) return Promise.resolve(null);
-  const id = nextRoundId++;
-  return new Promise((resolve, reject) => {
-    rounds.set(id, { resolve, reject });
-    w.postMessage({ type: "sync", id });
-  });
-}
-
-async function runInPage(): Promise<SyncResult> {
-  // The engine and the protocol's schemas load with the first sync, not with the screen.
-  const [db, { syncOnce }] = await Promise.all([getDeviceDb(), import("./engine")]);
-  return syncOnce({ db, fetch: (...a) => fetch(...a), onProgress: (progress) => set({ progress }) });
-}
-
 async function runOnce(): Promise<SyncResult> {
   set({ running: true, progress: null });
   try {
-    const result = (await runInWorker()) ?? (await runInPage());
+    // In the device worker (lib/sync/device-host.ts), or in the page where there is none.
+    const result = await deviceCall({ type: "sync" }, (progress) => set({ progress }));
     set({ last: result });
     return result;
   } finally {
