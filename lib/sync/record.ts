@@ -67,10 +67,6 @@ export interface RecordOptions {
   now?: Date;
 }
 
-async function ensureIdentity(db: DeviceDb) {
-  return (await readIdentity(db)) ?? { deviceId: uuid(), nextSeq: 1 };
-}
-
 /** Fills the optional fields and checks the change against what this phone holds. */
 async function prepare(db: DeviceDb, name: MutationName, input: Record<string, unknown>, now: Date, role: string) {
   const args: Record<string, unknown> = { ...input };
@@ -161,14 +157,14 @@ export async function record<N extends MutationName>(name: N, input: RecordInput
   const db = options.db ?? (await getDeviceDb());
   const now = options.now ?? new Date();
   return db.transaction("rw", recordTables(db, name), async () => {
-    const user = await readDeviceUser(db);
-    const sync = await readSyncState(db);
+    // Asked together: one round trip to the store instead of three (a tap waits for every one of them).
+    const [user, sync, storedIdentity] = await Promise.all([readDeviceUser(db), readSyncState(db), readIdentity(db)]);
     if (!user || sync.signedOut) throw new RecordError("not_signed_in", "Sign in on this phone first.");
     if (sync.otherSignedIn) {
       throw new RecordError("not_signed_in", `${user.name}'s changes are still waiting on this phone. Sign in as ${user.name} to send them first.`);
     }
     const { args, ticketId } = await prepare(db, name, input as Record<string, unknown>, now, user.role);
-    const identity = await ensureIdentity(db);
+    const identity = storedIdentity ?? { deviceId: uuid(), nextSeq: 1 };
     const entry: OutboxEntry = {
       seq: identity.nextSeq,
       mutationId: uuid(),
@@ -186,9 +182,8 @@ export async function record<N extends MutationName>(name: N, input: RecordInput
         await db.photoBlobs.put({ sha256, blob: options.blob, mime: String(args.mime), bytes: Number(args.bytes), uploadedAt: null, uploadError: null });
       }
     }
-    await applyLocalEffect(db, entry);
-    await db.outbox.add(entry);
-    await writeMeta(db, "device", { ...identity, nextSeq: identity.nextSeq + 1 });
+    // The three writes go out together; any one failing aborts the transaction, so all or none are kept.
+    await Promise.all([applyLocalEffect(db, entry), db.outbox.add(entry), writeMeta(db, "device", { ...identity, nextSeq: identity.nextSeq + 1 })]);
     return { mutationId: entry.mutationId, seq: entry.seq, id: entry.entityId };
   });
 }
@@ -211,7 +206,7 @@ export async function retryAttention(mutationId: string, options: { db?: DeviceD
       if (!t) throw new RecordError("not_found", "This ticket is not on this phone any more (it was closed or removed).");
       args.baseVersion = t.version;
     }
-    const identity = await ensureIdentity(db);
+    const identity = (await readIdentity(db)) ?? { deviceId: uuid(), nextSeq: 1 };
     const entry: OutboxEntry = {
       seq: identity.nextSeq,
       mutationId: uuid(),

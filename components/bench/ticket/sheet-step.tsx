@@ -201,7 +201,12 @@ function SheetStepView({ step, index, latest, history, photos, ctx, fullCautions
       aria-label={`Step ${index}: ${step.title}`}
       data-step={step.id}
       data-answered={answered ? "yes" : "no"}
-      className={"scroll-mt-20 rounded-2xl border-2 bg-surface p-4 focus:outline-3 focus:outline-accent " + (answered ? "border-ok" : "border-line")}
+      // Steps off the screen are not laid out or painted until scrolled near (content-visibility), so a tap's
+      // re-render and focus change cost the few steps in view, not the whole sheet.
+      className={
+        "scroll-mt-20 rounded-2xl border-2 bg-surface p-4 [contain-intrinsic-size:auto_22rem] [content-visibility:auto] focus:outline-3 focus:outline-accent " +
+        (answered ? "border-ok" : "border-line")
+      }
     >
       <p className="mb-2 flex items-center gap-2 text-sm font-bold uppercase tracking-wider text-ink-2">
         <span>Step {index}</span>
