@@ -53,7 +53,8 @@ export function BenchHome() {
                 Signed in as <span className="font-bold">{session.kind === "ready" ? session.user.name : session.current.name}</span>
               </>
             ) : (
-              "Loading…"
+              // Until the device store answers: the line keeps its height (nothing jumps), the list below says it is loading.
+              <span aria-hidden>&nbsp;</span>
             )}
           </p>
           {status?.sessionExpired ? (
