@@ -10,7 +10,7 @@
  */
 import path from "node:path";
 import Database from "better-sqlite3";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import bwipjs from "bwip-js/node";
 import { E2E_PORT } from "../../playwright.config";
 import { demoChainSaw, labelClip } from "../fixtures/printed-tag";
@@ -18,39 +18,22 @@ import { launchWithFakeCamera } from "../fixtures/fake-camera";
 import { DEMO, signInAs } from "./pages/sign-in";
 import { RECORD_CAMERA_AND_VIBRATION } from "./pages/scan";
 import { deviceTickets, goOffline, outboxCount, waitForServiceWorker } from "./pages/pwa";
+import { E2E_DATA_DIR, expectBigTargets, pick, step } from "./pages/bench-ticket";
 
 const BASE_URL = `http://localhost:${E2E_PORT}`;
-const DATA_DIR = path.resolve("tests/.tmp/e2e-data");
 const SHOTS = process.env.SCREENSHOTS ? "tests/.tmp/screens" : null;
 
 test.describe.configure({ timeout: 240_000 });
 test.use({ actionTimeout: 15_000 });
 
 function serverDb() {
-  return new Database(path.join(DATA_DIR, "benchwright.sqlite"), { readonly: true, fileMustExist: true });
-}
-
-const step = (page: Page, id: string) => page.locator(`[data-step="${id}"]`);
-
-async function pick(page: Page, stepId: string, answer: string) {
-  await step(page, stepId).getByRole("radio", { name: answer, exact: true }).click();
-  await expect(page.getByTestId(`saved-${stepId}`)).toContainText(answer);
-}
-
-/** Greasy hands: every button, photo button and bottom-bar link on the sheet is at least 56 px tall (WCAG 2.5.5 asks 44). */
-async function expectBigTargets(page: Page) {
-  const small = await page.locator("main button, main label[for]:has(svg), nav a").evaluateAll((els) =>
-    els
-      .map((e) => ({ text: (e.getAttribute("aria-label") ?? e.textContent ?? "").trim().slice(0, 40), h: e.getBoundingClientRect().height }))
-      .filter((b) => b.h > 0 && b.h < 56),
-  );
-  expect(small).toEqual([]);
+  return new Database(path.join(E2E_DATA_DIR, "benchwright.sqlite"), { readonly: true, fileMustExist: true });
 }
 
 let onFailure: () => Promise<void> = async () => undefined;
 
 test("a chain-saw diagnosis recorded offline on the phone reaches the server after sync", async ({ browser }) => {
-  const saw = demoChainSaw(DATA_DIR, DEMO.tech);
+  const saw = demoChainSaw(E2E_DATA_DIR, DEMO.tech);
 
   // The printed tag: the counter's 4×2 in label PDF at 150 dpi (600×300 px), centred in a 640×480 camera frame.
   const counter = await browser.newContext({ baseURL: BASE_URL });
